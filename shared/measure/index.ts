@@ -1,0 +1,52 @@
+/**
+ * Loopwright measurement library: units and gauge, yarn weight, colour,
+ * shaping arithmetic, yarn estimates and finished sizes. Pure functions, no
+ * DOM, no Node APIs, no I/O. See README.md for inputs, outputs, invariants
+ * and units.
+ */
+export {
+  CM_PER_INCH,
+  DEFAULT_FLOAT_LIMIT,
+  GAUGE_BASIS_CM,
+  convertLength,
+  dualLength,
+  floatLimitInStitches,
+  formatGauge,
+  formatLength,
+  gaugeFromPerInch,
+  gaugeProblems,
+  isFloatWithinLimit,
+  isPositiveFinite,
+  lengthToRows,
+  lengthToStitches,
+  normalizeGauge,
+  rowsToLength,
+  stitchesToLength,
+  toCm,
+  toInches,
+  tryNormalizeGauge,
+} from './units';
+export type {
+  CountRounding,
+  DualLength,
+  FormatLengthOptions,
+  Gauge,
+  GaugeBasis,
+  GaugeDeclaration,
+  Length,
+  LengthUnit,
+  MeasureOutcome,
+  MeasureProblem,
+} from './units';
+
+export {
+  DEFAULT_ALIKE_THRESHOLD,
+  colourDifference,
+  coloursTooAlike,
+  contrastRatio,
+  findAlikeColours,
+  parseYarnColour,
+  suggestColourName,
+  symbolInk,
+} from './colour';
+export type { AlikePair, ColourInput, SymbolInk, YarnColour } from './colour';

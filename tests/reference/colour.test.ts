@@ -1,0 +1,58 @@
+// Reference checks for shared/measure/colour.ts. CIEDE2000 is cross-checked
+// against color-diff (an independent implementation listed in references.md,
+// "General-purpose oracles"); WCAG contrast against wcag-contrast (same list).
+import { diff as ciede2000, rgbaToLab } from 'color-diff';
+import { hex as wcagHex } from 'wcag-contrast';
+import { describe, expect, it } from 'vitest';
+import { colourDifference, contrastRatio, parseYarnColour, symbolInk } from '../../shared/measure';
+
+function rgbOf(hex: string) {
+  const parsed = parseYarnColour(hex);
+  if (!parsed.ok) throw new Error(parsed.problem.message);
+  return { R: parsed.value.rgb.r, G: parsed.value.rgb.g, B: parsed.value.rgb.b };
+}
+
+const PAIRS: [string, string][] = [
+  ['#ff0000', '#fe0000'],
+  ['#1f4e79', '#2e75b6'],
+  ['#000080', '#000000'],
+  ['#e0e0e0', '#ffffff'],
+  ['#ffd700', '#ffa500'],
+  ['#808000', '#6b8e23'],
+  ['#2f6f73', '#3a7d6e'],
+  ['#f4efe6', '#efe8d8'],
+];
+
+describe('CIEDE2000 (references.md oracles: color-diff)', () => {
+  it.each(PAIRS)('ΔE00(%s, %s) agrees with color-diff to 0.01', (a, b) => {
+    const oracle = ciede2000(rgbaToLab(rgbOf(a)), rgbaToLab(rgbOf(b)));
+    expect(colourDifference(a, b)).toBeCloseTo(oracle, 2);
+  });
+
+  it('CSS names resolve to the same colour as their hex (navy = #000080, CSS Color 4 named colours)', () => {
+    const oracle = ciede2000(rgbaToLab(rgbOf('#000080')), rgbaToLab(rgbOf('#000000')));
+    expect(colourDifference('navy', 'black')).toBeCloseTo(oracle, 2);
+  });
+});
+
+describe('WCAG 2 contrast ratio (references.md oracles: wcag-contrast)', () => {
+  it('black on white is 21:1, the top of the WCAG scale (WCAG 2 definition, from memory; oracle agrees)', () => {
+    expect(contrastRatio('#000000', '#ffffff')).toBeCloseTo(21, 6);
+    expect(wcagHex('#000000', '#ffffff')).toBeCloseTo(21, 6);
+  });
+
+  it.each([...PAIRS, ['#777777', '#ffffff'] as [string, string]])('contrast(%s, %s) agrees with wcag-contrast to 0.01', (a, b) => {
+    expect(contrastRatio(a, b)).toBeCloseTo(wcagHex(a, b), 2);
+  });
+
+  it.each(['#000080', '#ffd700', '#2f6f73', '#f4efe6', '#777777', '#c0392b', '#7f7f7f'])(
+    'symbol ink on %s is the one wcag-contrast rates higher',
+    (cell) => {
+      const chosen = symbolInk(cell);
+      const black = wcagHex(cell, '#000000');
+      const white = wcagHex(cell, '#ffffff');
+      expect(chosen.ink).toBe(black >= white ? 'black' : 'white');
+      expect(chosen.contrast).toBeCloseTo(Math.max(black, white), 2);
+    },
+  );
+});
