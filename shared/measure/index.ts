@@ -50,3 +50,33 @@ export {
   symbolInk,
 } from './colour';
 export type { AlikePair, ColourInput, SymbolInk, YarnColour } from './colour';
+
+export { YARN_WEIGHTS, classifyStitchesPer4In, classifyYarnWeight, suggestYarnWeight } from './yarn-weight';
+export type {
+  YarnWeightCategory,
+  YarnWeightClassification,
+  YarnWeightMatch,
+  YarnWeightNeighbour,
+  YarnWeightNumber,
+} from './yarn-weight';
+
+export {
+  K2TOG,
+  M1,
+  MAX_SHAPING_STITCHES,
+  countSegments,
+  formatSegments,
+  ordinal,
+  spaceShapingEvenly,
+  spreadShapingOverLength,
+} from './shaping';
+export type {
+  EvenShaping,
+  ShapingInterval,
+  ShapingLayout,
+  ShapingOverLength,
+  ShapingOverLengthRequest,
+  ShapingSegment,
+  ShapingStitch,
+  SpaceEvenlyRequest,
+} from './shaping';
