@@ -1,0 +1,237 @@
+/**
+ * The studio: the source editor on the left, views of the compiled pattern
+ * on the right (counts and problems; more as renderers arrive), saving with
+ * a message, drafts kept locally, and stale-save conflicts resolved without
+ * losing either side.
+ */
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { Span } from '../../../shared';
+import type { Pattern, Revision } from '../../api/types';
+import { conflictOf, useSaveRevision } from '../../api/usePatterns';
+import { errorText } from '../../api/client';
+import { LoopEditor, type EditorHandle } from '../../editor/LoopEditor';
+import { pushDiagnostics } from '../../editor/lint';
+import { roundsOnLine } from '../../editor/rounds';
+import { useCompiler } from '../../editor/useCompiler';
+import type { QuickFix } from '../../editor/quick-fix';
+import { Notice } from '../Notice';
+import { relativeTime } from '../format';
+import { ConflictDialog } from './ConflictDialog';
+import { CountsPane } from './CountsPane';
+import { HelpOverlay } from './HelpOverlay';
+import { PaneTabs, type PaneTab } from './PaneTabs';
+import { ProblemsPane } from './ProblemsPane';
+import { SaveDialog } from './SaveDialog';
+import { useEditingSession } from './useEditingSession';
+import { useWorkspaceKeys } from './useWorkspaceKeys';
+import { WorkspaceHeader } from './WorkspaceHeader';
+import { writeSetAside } from './drafts';
+
+type PaneKey = 'counts' | 'problems';
+
+export interface WorkspaceViewProps {
+  patternId: string;
+  pattern: Pattern;
+  latest: Revision | null;
+}
+
+export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps) {
+  const session = useEditingSession(patternId, latest);
+  const compiler = useCompiler();
+  const save = useSaveRevision(patternId);
+  const editor = useRef<EditorHandle | null>(null);
+  const [pane, setPane] = useState<PaneKey>('counts');
+  const [cursorLine, setCursorLine] = useState(1);
+  const [savedRevision, setSavedRevision] = useState<Revision | null>(latest);
+  const [saveOpen, setSaveOpen] = useState(false);
+  const [helpOpen, setHelpOpen] = useState(false);
+  const [conflict, setConflict] = useState<{ theirs: Revision; message: string } | null>(null);
+  const [setAside, setSetAside] = useState<string | null>(null);
+  const [toast, setToast] = useState<string | null>(null);
+  const [showRestored, setShowRestored] = useState(session.restored !== null);
+  const canEdit = !pattern.myRole || pattern.myRole === 'owner';
+
+  const view = compiler.view;
+  useEffect(() => {
+    if (view && editor.current) pushDiagnostics(editor.current.view, view);
+  }, [view]);
+
+  useEffect(() => {
+    if (!toast) return;
+    const t = setTimeout(() => setToast(null), 4000);
+    return () => clearTimeout(t);
+  }, [toast]);
+
+  const { schedule } = compiler;
+  const { onDocChange } = session;
+  const handleDocChange = useCallback((doc: string) => { onDocChange(doc); schedule(doc); }, [onDocChange, schedule]);
+  const initialDoc = session.initialDoc;
+  const handleReady = useCallback((h: EditorHandle | null) => {
+    editor.current = h;
+    if (h) schedule(initialDoc, true);
+  }, [schedule, initialDoc]);
+  const jump = useCallback((span: Span) => editor.current?.jumpTo(span.from, span.to), []);
+  const applyFix = useCallback((fix: QuickFix) => {
+    const h = editor.current;
+    if (!h || h.view.state.doc.toString() !== view?.source) return; // offsets refer to the compiled text
+    h.view.dispatch({ changes: { from: fix.from, to: fix.to, insert: fix.insert }, userEvent: 'input.quickfix' });
+    h.focus();
+  }, [view]);
+
+  const openSave = useCallback(() => { if (canEdit) { save.reset(); setSaveOpen(true); } }, [canEdit, save]);
+
+  const doSave = (message: string, baseRevision: number) => {
+    const source = session.docRef.current;
+    save.mutate({ source, baseRevision, message }, {
+      onSuccess: ({ revision }) => {
+        session.markSaved({ number: revision.number, source });
+        setSavedRevision(revision);
+        setSaveOpen(false);
+        setConflict(null);
+        setShowRestored(false);
+        setToast(`Saved as revision #${revision.number}.`);
+      },
+      onError: (err) => {
+        const theirs = conflictOf(err);
+        if (theirs) { setSaveOpen(false); setConflict({ theirs, message }); }
+      },
+    });
+  };
+
+  const takeTheirs = () => {
+    if (!conflict) return;
+    const mine = session.docRef.current;
+    writeSetAside(patternId, { baseRevision: session.baseRevision, source: mine, savedAt: Date.now() });
+    setSetAside(mine);
+    editor.current?.replaceDoc(conflict.theirs.source);
+    session.markSaved({ number: conflict.theirs.number, source: conflict.theirs.source });
+    setSavedRevision(conflict.theirs);
+    setConflict(null);
+    save.reset();
+  };
+
+  const tabs: PaneTab<PaneKey>[] = [
+    { key: 'counts', label: 'Counts', shortcut: 'Alt+1' },
+    {
+      key: 'problems', label: 'Problems', shortcut: 'Alt+2',
+      badge: view && view.diagnostics.length > 0 ? (
+        <span className={`rounded-full px-1.5 text-caption font-semibold ${view.diagnostics.some((d) => d.severity === 'error') ? 'bg-glasswort-600 text-white' : 'bg-mudflat-200 text-mudflat-900'}`}>
+          {view.diagnostics.length}
+        </span>
+      ) : undefined,
+    },
+  ];
+
+  useWorkspaceKeys({
+    onPane: (i) => { if (tabs[i]) setPane(tabs[i].key); },
+    onEditor: () => editor.current?.focus(),
+    onHelp: () => setHelpOpen(true),
+  });
+
+  const hereRounds = view && view.source === session.docRef.current ? roundsOnLine(view, cursorLine) : [];
+  const hereLabel = hereRounds.length
+    ? (() => {
+      const nums = hereRounds[0].rounds.map((r) => r.number);
+      return nums.length > 1 ? `Rounds ${nums[0]}–${nums[nums.length - 1]}` : `Round ${nums[0]}`;
+    })()
+    : null;
+
+  return (
+    <div className="flex min-h-0 flex-1 flex-col">
+      <WorkspaceHeader
+        title={view?.header.title ?? pattern.title}
+        status={pattern.status}
+        revision={savedRevision}
+        baseRevision={session.baseRevision}
+        dirty={session.dirty}
+        view={view}
+        checking={compiler.pending}
+        canEdit={canEdit}
+        onSave={openSave}
+        onShowProblems={() => setPane('problems')}
+        onHelp={() => setHelpOpen(true)}
+      />
+      {(showRestored && session.restored) || setAside !== null || !canEdit ? (
+        <div className="space-y-2 border-b border-tide-200 bg-white px-4 py-2">
+          {!canEdit && <Notice tone="info">You can read this pattern; only its designer saves revisions.</Notice>}
+          {showRestored && session.restored && (
+            <Notice tone="info">
+              <span className="flex items-center gap-3">
+                Restored your unsaved changes from {relativeTime(new Date(session.restored.savedAt).toISOString())}
+                {session.restored.baseRevision !== latest?.number && ` (started from revision #${session.restored.baseRevision}; a newer one exists, and saving will let you compare)`}.
+                <button type="button" className="ml-auto font-medium underline" onClick={() => setShowRestored(false)}>Dismiss</button>
+              </span>
+            </Notice>
+          )}
+          {setAside !== null && (
+            <Notice tone="info">
+              <span className="flex items-center gap-3">
+                Your own version is set aside in this browser.
+                <button type="button" className="font-medium underline" onClick={() => { editor.current?.replaceDoc(setAside); setSetAside(null); }}>
+                  Bring my version back
+                </button>
+                <button type="button" className="ml-auto font-medium underline" onClick={() => setSetAside(null)}>Dismiss</button>
+              </span>
+            </Notice>
+          )}
+        </div>
+      ) : null}
+
+      <div className="grid min-h-0 flex-1 grid-cols-[minmax(0,1fr)_minmax(26rem,44%)]">
+        <section aria-label="Editor" className="flex min-h-0 min-w-0 flex-col border-r border-tide-200 bg-white">
+          <div className="min-h-0 flex-1">
+            <LoopEditor
+              docKey={patternId}
+              initialDoc={session.initialDoc}
+              onDocChange={handleDocChange}
+              onCursorLine={setCursorLine}
+              onSave={openSave}
+              onReady={handleReady}
+              readOnly={!canEdit}
+            />
+          </div>
+          <div className="flex h-7 shrink-0 items-center gap-4 border-t border-tide-200 bg-tide-50 px-3 text-caption text-tide-700">
+            <span>Line {cursorLine}</span>
+            {hereLabel && <span>{hereLabel}</span>}
+            <span className="ml-auto">{view ? `Checked in ${Math.max(1, Math.round(view.elapsedMs))} ms` : 'Checking…'}</span>
+          </div>
+        </section>
+        <section aria-label="Views of the pattern" className="flex min-h-0 min-w-0 flex-col bg-white">
+          <PaneTabs tabs={tabs} selected={pane} onSelect={setPane} idPrefix="ws" />
+          <div role="tabpanel" id={`ws-panel-${pane}`} aria-labelledby={`ws-tab-${pane}`} className="min-h-0 flex-1">
+            {pane === 'counts' && <CountsPane view={view} cursorLine={cursorLine} onJump={jump} />}
+            {pane === 'problems' && <ProblemsPane view={view} stale={compiler.pending} onJump={jump} onFix={applyFix} />}
+          </div>
+        </section>
+      </div>
+
+      <SaveDialog
+        open={saveOpen}
+        baseRevision={session.baseRevision}
+        saving={save.isPending}
+        error={save.isError && !conflictOf(save.error) ? errorText(save.error) : null}
+        errors={view?.diagnostics.filter((d) => d.severity === 'error').length ?? 0}
+        onSave={(message) => doSave(message, session.baseRevision)}
+        onClose={() => setSaveOpen(false)}
+      />
+      {conflict && (
+        <ConflictDialog
+          open
+          mine={session.docRef.current}
+          theirs={conflict.theirs}
+          saving={save.isPending}
+          error={save.isError && !conflictOf(save.error) ? errorText(save.error) : null}
+          onKeepMine={() => doSave(conflict.message, conflict.theirs.number)}
+          onTakeTheirs={takeTheirs}
+          onClose={() => setConflict(null)}
+        />
+      )}
+      <HelpOverlay open={helpOpen} onClose={() => setHelpOpen(false)} />
+      {toast && (
+        <div role="status" className="fixed bottom-10 left-1/2 z-40 -translate-x-1/2 rounded-full bg-tide-900 px-4 py-2 text-sm text-white shadow-float">
+          {toast}
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,132 @@
+/**
+ * The Loopwright source editor (CodeMirror 6) as a React component.
+ *
+ * The editor owns its document; React hears about changes through
+ * `onDocChange` and about the cursor's line through `onCursorLine`, and
+ * drives the editor through the {@link EditorHandle} it receives. The view
+ * is created once per `docKey` (a pattern), so re-renders never reset it.
+ */
+import { useEffect, useRef } from 'react';
+import { EditorState, type Extension } from '@codemirror/state';
+import {
+  drawSelection, EditorView, highlightActiveLine, highlightActiveLineGutter, highlightSpecialChars, keymap, lineNumbers,
+} from '@codemirror/view';
+import { defaultKeymap, history, historyKeymap, indentWithTab } from '@codemirror/commands';
+import { highlightSelectionMatches, searchKeymap } from '@codemirror/search';
+import { completionKeymap, closeBrackets, closeBracketsKeymap } from '@codemirror/autocomplete';
+import { lintGutter, nextDiagnostic, previousDiagnostic } from '@codemirror/lint';
+import '@fontsource/jetbrains-mono/latin-400.css';
+import { compiledField } from './compile-state';
+import { loopCompletion } from './completion';
+import { loopHighlighting } from './highlight';
+import { roundHover } from './hover';
+import { loopTheme } from './theme';
+
+/** What the workspace can do to the editor. */
+export interface EditorHandle {
+  view: EditorView;
+  /** Select `from`–`to` (offsets), scroll it into view and focus the editor. */
+  jumpTo: (from: number, to?: number) => void;
+  /** Replace the whole text as one undoable change. */
+  replaceDoc: (text: string) => void;
+  focus: () => void;
+}
+
+export interface LoopEditorProps {
+  /** Identity of the document; a new key builds a fresh editor. */
+  docKey: string;
+  initialDoc: string;
+  onDocChange: (doc: string) => void;
+  /** 1-based line of the main cursor. */
+  onCursorLine?: (line: number) => void;
+  onSave: () => void;
+  onReady: (handle: EditorHandle | null) => void;
+  /** Extra keyboard shortcuts (for example pane switching). */
+  extraKeys?: Extension;
+  /** Read-only for people who may not save (set when the editor is built). */
+  readOnly?: boolean;
+}
+
+/** The language and editing extensions of a Loopwright editor, without React glue. */
+export function loopExtensions(): Extension[] {
+  return [
+    lineNumbers(),
+    lintGutter({ hoverTime: 200 }),
+    highlightActiveLineGutter(),
+    highlightSpecialChars(),
+    history(),
+    drawSelection(),
+    closeBrackets(),
+    highlightActiveLine(),
+    highlightSelectionMatches(),
+    EditorState.tabSize.of(2),
+    compiledField,
+    loopHighlighting,
+    loopCompletion,
+    roundHover,
+    loopTheme,
+  ];
+}
+
+export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSave, onReady, extraKeys, readOnly = false }: LoopEditorProps) {
+  const host = useRef<HTMLDivElement>(null);
+  // Latest callbacks, read by the long-lived editor without rebuilding it.
+  const callbacks = useRef({ onDocChange, onCursorLine, onSave, onReady });
+  callbacks.current = { onDocChange, onCursorLine, onSave, onReady };
+
+  useEffect(() => {
+    if (!host.current) return;
+    let lastLine = -1;
+    const view = new EditorView({
+      parent: host.current,
+      state: EditorState.create({
+        doc: initialDoc,
+        extensions: [
+          keymap.of([
+            { key: 'Mod-s', preventDefault: true, run: () => { callbacks.current.onSave(); return true; } },
+            { key: 'F8', run: nextDiagnostic, preventDefault: true },
+            { key: 'Shift-F8', run: previousDiagnostic, preventDefault: true },
+          ]),
+          extraKeys ?? [],
+          EditorState.readOnly.of(readOnly),
+          keymap.of([...closeBracketsKeymap, ...defaultKeymap, ...searchKeymap, ...historyKeymap, ...completionKeymap, indentWithTab]),
+          loopExtensions(),
+          EditorView.contentAttributes.of({ 'aria-label': 'Pattern source', spellcheck: 'false', autocapitalize: 'off', autocorrect: 'off' }),
+          EditorView.updateListener.of((u) => {
+            if (u.docChanged) callbacks.current.onDocChange(u.state.doc.toString());
+            if (u.docChanged || u.selectionSet) {
+              const line = u.state.doc.lineAt(u.state.selection.main.head).number;
+              if (line !== lastLine) {
+                lastLine = line;
+                callbacks.current.onCursorLine?.(line);
+              }
+            }
+          }),
+        ],
+      }),
+    });
+    const handle: EditorHandle = {
+      view,
+      jumpTo: (from, to = from) => {
+        const len = view.state.doc.length;
+        const a = Math.min(Math.max(0, from), len);
+        const b = Math.min(Math.max(a, to), len);
+        view.dispatch({ selection: { anchor: a, head: b }, effects: EditorView.scrollIntoView(a, { y: 'center' }) });
+        view.focus();
+      },
+      replaceDoc: (text) => {
+        view.dispatch({ changes: { from: 0, to: view.state.doc.length, insert: text }, userEvent: 'input.replace' });
+      },
+      focus: () => view.focus(),
+    };
+    callbacks.current.onReady(handle);
+    callbacks.current.onCursorLine?.(1);
+    return () => {
+      callbacks.current.onReady(null);
+      view.destroy();
+    };
+    // The editor is rebuilt only for a new document; initialDoc is read once.
+  }, [docKey]);
+
+  return <div ref={host} className="h-full min-h-0 overflow-hidden" data-testid="editor" />;
+}

@@ -1,0 +1,60 @@
+/**
+ * The editor's look: JetBrains Mono, the marsh palette, token colours, lint
+ * marks and tooltips. Token colours keep at least 4.5:1 contrast on the
+ * white editor background.
+ */
+import { EditorView } from '@codemirror/view';
+
+export const loopTheme = EditorView.theme(
+  {
+    '&': { height: '100%', fontSize: '13.5px', backgroundColor: '#ffffff', color: '#1f2629' },
+    '.cm-scroller': { fontFamily: '"JetBrains Mono", ui-monospace, monospace', lineHeight: '1.6' },
+    '.cm-content': { padding: '10px 0', caretColor: '#56437b' },
+    '.cm-cursor, .cm-dropCursor': { borderLeftColor: '#56437b', borderLeftWidth: '2px' },
+    '&.cm-focused': { outline: 'none' },
+    '&.cm-focused .cm-selectionBackground, .cm-selectionBackground, ::selection': { backgroundColor: '#d8cfeb !important' },
+    '.cm-activeLine': { backgroundColor: '#f6f4fa' },
+    '.cm-gutters': { backgroundColor: '#f4f6f7', color: '#56636b', borderRight: '1px solid #d1d8dc' },
+    '.cm-activeLineGutter': { backgroundColor: '#ece7f5', color: '#2d2441' },
+    '.cm-lineNumbers .cm-gutterElement': { padding: '0 10px 0 14px', minWidth: '3ch' },
+    '.cm-lint-marker': { width: '0.9em', height: '0.9em' },
+    '.cm-lintRange-error': { backgroundImage: 'none', textDecoration: 'underline wavy #b8443e', textUnderlineOffset: '3px', textDecorationSkipInk: 'none' },
+    '.cm-lintRange-warning': { backgroundImage: 'none', textDecoration: 'underline wavy #ad7f1f', textUnderlineOffset: '3px', textDecorationSkipInk: 'none' },
+    '.cm-lintRange-info': { backgroundImage: 'none', textDecoration: 'underline dotted #6a5397', textUnderlineOffset: '3px' },
+    '.cm-tooltip': { border: '1px solid #d1d8dc', borderRadius: '6px', backgroundColor: '#ffffff', boxShadow: '0 8px 24px -6px rgb(31 38 41 / 0.22)', fontFamily: 'Inter, system-ui, sans-serif', fontSize: '13px' },
+    '.cm-tooltip-lint': { padding: '0' },
+    '.cm-diagnostic': { padding: '8px 12px', borderLeftWidth: '4px', maxWidth: '32rem' },
+    '.cm-diagnostic-error': { borderLeftColor: '#b8443e' },
+    '.cm-diagnostic-warning': { borderLeftColor: '#ad7f1f' },
+    '.cm-diagnostic-info': { borderLeftColor: '#6a5397' },
+    '.cm-diagnosticSource': { fontFamily: '"JetBrains Mono", monospace', fontSize: '11px', color: '#56636b', opacity: '1' },
+    '.cm-diagnosticAction': { backgroundColor: '#56437b', color: '#fff', borderRadius: '4px', padding: '2px 8px', font: 'inherit', fontSize: '12px' },
+    '.lw-lint-size': { marginTop: '2px', fontSize: '12px', color: '#56636b' },
+    '.lw-lint-hint': { marginTop: '4px', fontSize: '12px', color: '#3e5a23' },
+    '.cm-tooltip-autocomplete > ul': { fontFamily: '"JetBrains Mono", monospace', fontSize: '12.5px' },
+    '.cm-tooltip-autocomplete ul li[aria-selected]': { backgroundColor: '#56437b', color: '#fff' },
+    '.cm-completionDetail': { fontFamily: 'Inter, sans-serif', fontStyle: 'normal', color: '#56636b', marginLeft: '1em' },
+    '.cm-tooltip-autocomplete ul li[aria-selected] .cm-completionDetail': { color: '#ece7f5' },
+    '.lw-round-hover': { padding: '8px 10px' },
+    '.lw-round-hover table': { borderCollapse: 'collapse', fontVariantNumeric: 'tabular-nums' },
+    '.lw-round-hover th': { textAlign: 'left', fontWeight: '600', fontSize: '11px', textTransform: 'uppercase', letterSpacing: '0.03em', color: '#56636b', padding: '0 10px 4px 0' },
+    '.lw-round-hover td': { padding: '2px 10px 2px 0', color: '#30393e' },
+    '.lw-round-hover .lw-size': { fontWeight: '600', color: '#42345e' },
+    '.lw-round-hover .lw-total': { fontWeight: '600' },
+    '.lw-round-hover .lw-long': { color: '#7f2a27', fontWeight: '600' },
+    '.lw-round-hover .lw-more': { color: '#56636b', fontStyle: 'italic' },
+    '.cm-panels': { fontFamily: 'Inter, sans-serif' },
+    // Token colours (all ≥ 4.5:1 on white).
+    '.lw-keyword': { color: '#56437b', fontWeight: '600' },
+    '.lw-stitch': { color: '#3e5a23' },
+    '.lw-number': { color: '#8c6517' },
+    '.lw-comment': { color: '#56636b', fontStyle: 'italic' },
+    '.lw-string': { color: '#7f2a27' },
+    '.lw-yarn': { color: '#1d5f73', fontWeight: '600' },
+    '.lw-colour': { color: '#6d4e13' },
+    '.lw-name': { color: '#0f5c55' },
+    '.lw-punctuation': { color: '#56636b' },
+    '.lw-invalid': { color: '#9d3430', textDecoration: 'underline dotted' },
+  },
+  { dark: false },
+);

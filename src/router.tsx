@@ -1,0 +1,35 @@
+/**
+ * The studio's pages. Each page is a lazy route module in src/routes/
+ * (exporting `Component`), so the first load carries only this table, the
+ * shell and the page asked for; the workspace's editor and compiler load
+ * only when a pattern is opened.
+ */
+import { createBrowserRouter, Navigate } from 'react-router';
+import { AppShell } from './components/AppShell';
+import { RequireSession } from './components/RequireSession';
+import { RouteError } from './components/RouteError';
+
+export const router = createBrowserRouter([
+  {
+    element: <AppShell />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, element: <Navigate to="/patterns" replace /> },
+      { path: 'sign-in', lazy: () => import('./routes/SignIn') },
+      { path: 'sign-up', lazy: () => import('./routes/SignUp') },
+      { path: 'reset-password', lazy: () => import('./routes/ResetRequest') },
+      { path: 'reset-password/:token', lazy: () => import('./routes/ResetSet') },
+      { path: 'invitations/:token', lazy: () => import('./routes/AcceptInvitation') },
+      { path: 'dev/outbox', lazy: () => import('./routes/DevOutbox') },
+      {
+        element: <RequireSession />,
+        children: [
+          { path: 'patterns', lazy: () => import('./routes/Library') },
+          { path: 'patterns/:id', lazy: () => import('./routes/Workspace') },
+          { path: 'account', lazy: () => import('./routes/Account') },
+        ],
+      },
+      { path: '*', lazy: () => import('./routes/NotFound') },
+    ],
+  },
+]);

@@ -1,0 +1,36 @@
+/**
+ * Vite configuration for the Loopwright studio (the browser client in src/).
+ *
+ * - React (Fast Refresh) and Tailwind CSS 4 through their Vite plugins; the
+ *   Tailwind theme lives in tailwind.config.ts, wired in from src/styles/app.css
+ *   with the `@config` directive.
+ * - `npm run dev`: dev server on 127.0.0.1:5173, `/api` proxied to the Express
+ *   app on 127.0.0.1:4310 (the port `npm start` uses by default).
+ * - `vite build` writes dist/, which Express serves. Pages are lazy route
+ *   modules (see src/router.tsx), so the first load carries only the shell,
+ *   the sign-in and library pages; the editor, the compiler and its worker
+ *   load with the workspace.
+ */
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    strictPort: true,
+    proxy: { '/api': { target: 'http://127.0.0.1:4310', changeOrigin: false } },
+  },
+  worker: { format: 'es' },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    target: 'es2022',
+    sourcemap: false,
+    // Fonts are small woff2 files; keep them as files rather than inlined.
+    assetsInlineLimit: 0,
+    reportCompressedSize: true,
+  },
+});
