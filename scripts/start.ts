@@ -1,0 +1,28 @@
+/**
+ * `npm start`: private MariaDB (127.0.0.1:3316, .data/start), migrations,
+ * demo seed, fake SMTP (127.0.0.1:2526), `vite build` when the client is
+ * stale, then the app on 127.0.0.1:${PORT:-4310}. Ctrl-C stops everything,
+ * MariaDB included.
+ */
+import { describeDemo, startLocalBackend, stopOnSignals } from '../server/boot.ts';
+import { buildClient, staleReason } from './client-build.ts';
+
+process.env.NODE_ENV ??= 'development';
+
+async function main(): Promise<void> {
+  const reason = staleReason();
+  if (reason) {
+    console.log(`Building the client (${reason}) ...`);
+    if (!(await buildClient())) {
+      console.error('The client build failed (see above). The API still starts; the pages will not be served until the build succeeds.');
+    }
+  }
+  const backend = await startLocalBackend({ name: 'start', dbPort: 3316 });
+  stopOnSignals(backend.stop);
+  console.log(describeDemo(backend.url));
+}
+
+main().catch((err: unknown) => {
+  console.error(`\nCould not start: ${err instanceof Error ? err.message : String(err)}`);
+  process.exit(1);
+});

@@ -1,0 +1,47 @@
+/** Texts of the mails we send, in plain text and simple HTML. */
+import type { MailMessage } from './mailer.ts';
+
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+
+const roleWords: Record<string, string> = {
+  editor: 'technical editor',
+  'test-knitter': 'test knitter',
+  knitter: 'knitter',
+};
+
+function layout(paragraphs: string[], link: string, linkLabel: string, footer: string): string {
+  const ps = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join('\n');
+  return `<!doctype html><html><body style="font-family:sans-serif;max-width:36em;line-height:1.5">
+${ps}
+<p><a href="${escapeHtml(link)}">${escapeHtml(linkLabel)}</a></p>
+<p style="color:#666;font-size:90%">${escapeHtml(footer)}</p>
+</body></html>`;
+}
+
+/** Invitation to join a pattern as editor, test knitter or knitter. */
+export function invitationMail(o: { to: string; inviter: string; patternTitle: string; role: string; link: string; expiresAt: Date }): MailMessage {
+  const role = roleWords[o.role] ?? o.role;
+  const lines = [
+    `${o.inviter} has asked you to join "${o.patternTitle}" on Loopwright as ${role}.`,
+    'Open the link below to accept. If you have no Loopwright account yet, you can choose a name and password there.',
+  ];
+  const footer = `The link works once and until ${o.expiresAt.toUTCString()}. If you were not expecting this, you can ignore this message.`;
+  return {
+    to: o.to,
+    subject: `You are invited to "${o.patternTitle}" on Loopwright`,
+    text: `${lines.join('\n\n')}\n\n${o.link}\n\n${footer}\n`,
+    html: layout(lines, o.link, 'Accept the invitation', footer),
+  };
+}
+
+/** Password reset link. */
+export function passwordResetMail(o: { to: string; name: string; link: string; expiresAt: Date }): MailMessage {
+  const lines = [`Hello ${o.name},`, 'Someone (hopefully you) asked to choose a new password for this Loopwright account. Open the link below to set one.'];
+  const footer = `The link works once and until ${o.expiresAt.toUTCString()}. If you did not ask for this, ignore this message; your password stays as it is.`;
+  return {
+    to: o.to,
+    subject: 'Choose a new Loopwright password',
+    text: `${lines.join('\n\n')}\n\n${o.link}\n\n${footer}\n`,
+    html: layout(lines, o.link, 'Choose a new password', footer),
+  };
+}

@@ -1,0 +1,114 @@
+/**
+ * The access policy, in one place. Every route that touches a pattern asks
+ * {@link authorizePattern} with an action; nothing else decides who may do
+ * what.
+ *
+ * - The owner (a designer) may do everything on their pattern.
+ * - An invited editor sees every revision, comments, and approves or asks
+ *   for changes.
+ * - An invited test knitter or knitter sees the released revision only, and
+ *   only once one is released.
+ * - Anybody else gets 404 (existence is not leaked); a member who can see the
+ *   pattern but not do the action gets 403.
+ * - Creating patterns needs the global `designer` role (or `admin`);
+ *   managing accounts needs `admin`. Admins see no pattern they are not on.
+ */
+import { Membership, Pattern, type User } from '../models/index.ts';
+import { forbidden, notFound, unauthorized } from './errors.ts';
+
+export type PatternRole = 'owner' | 'editor' | 'test-knitter' | 'knitter';
+
+/** Everything one can do to a pattern. */
+export type PatternAction =
+  | 'view'              // the pattern and the revisions this role may see
+  | 'view-all-revisions'
+  | 'save-revision'
+  | 'list-members'
+  | 'manage-members'    // invite, remove others
+  | 'comment'
+  | 'submit-for-review' // owner: draft -> in-review, in-review -> draft
+  | 'review'            // editor: in-review -> approved | draft
+  | 'release'           // owner: approved -> released
+  | 'upload'
+  | 'view-uploads';
+
+/** Which pattern roles may take each action (the matrix the role test walks). */
+export const POLICY: Readonly<Record<PatternAction, readonly PatternRole[]>> = {
+  view: ['owner', 'editor', 'test-knitter', 'knitter'],
+  'view-all-revisions': ['owner', 'editor'],
+  'save-revision': ['owner'],
+  'list-members': ['owner', 'editor'],
+  'manage-members': ['owner'],
+  comment: ['owner', 'editor'],
+  'submit-for-review': ['owner'],
+  review: ['editor'],
+  release: ['owner'],
+  upload: ['owner'],
+  'view-uploads': ['owner', 'editor', 'test-knitter', 'knitter'],
+};
+
+/** True when `role` may see the pattern at all (knitters only after a release). */
+export function canSee(role: PatternRole | null, pattern: Pick<Pattern, 'releasedRevision'>): boolean {
+  if (role === null) return false;
+  if (role === 'test-knitter' || role === 'knitter') return pattern.releasedRevision !== null && pattern.releasedRevision !== undefined;
+  return true;
+}
+
+/** True when `role` may take `action` on `pattern`. */
+export function isAllowed(role: PatternRole | null, action: PatternAction, pattern: Pick<Pattern, 'releasedRevision'>): boolean {
+  return canSee(role, pattern) && role !== null && POLICY[action].includes(role);
+}
+
+/** Revision numbers `role` may read: all of them, or only the released one. */
+export function visibleRevisions(role: PatternRole, pattern: Pick<Pattern, 'latestRevision' | 'releasedRevision'>): 'all' | number[] {
+  if (role === 'owner' || role === 'editor') return 'all';
+  return pattern.releasedRevision ? [pattern.releasedRevision] : [];
+}
+
+/** Newest revision number `role` may read (0 when none). */
+export function newestVisibleRevision(role: PatternRole, pattern: Pick<Pattern, 'latestRevision' | 'releasedRevision'>): number {
+  const v = visibleRevisions(role, pattern);
+  return v === 'all' ? pattern.latestRevision : (v[0] ?? 0);
+}
+
+/** The caller's role on a pattern, or null. */
+export async function roleOn(user: User, pattern: Pattern): Promise<PatternRole | null> {
+  if (pattern.ownerId === user.id) return 'owner';
+  const m = await Membership.findOne({ where: { patternId: pattern.id, userId: user.id } });
+  return m ? m.role : null;
+}
+
+/**
+ * Loads pattern `patternId` and checks that `user` may take `action` on it.
+ * Throws 401 without a user, 404 when the user may not see the pattern (or it
+ * does not exist), 403 when they see it but may not take the action.
+ */
+export async function authorizePattern(user: User | null, patternId: number, action: PatternAction): Promise<{ pattern: Pattern; role: PatternRole }> {
+  if (!user) throw unauthorized();
+  const pattern = Number.isSafeInteger(patternId) && patternId > 0 ? await Pattern.findByPk(patternId) : null;
+  if (!pattern) throw notFound('Pattern');
+  const role = await roleOn(user, pattern);
+  if (!canSee(role, pattern) || role === null) throw notFound('Pattern');
+  if (!POLICY[action].includes(role)) throw forbidden(`As ${role === 'editor' ? 'an' : 'a'} ${role} on this pattern you may not do that.`);
+  return { pattern, role };
+}
+
+/** Throws unless `user` may create patterns (global designer or admin). */
+export function authorizeCreatePattern(user: User | null): User {
+  if (!user) throw unauthorized();
+  if (!user.hasRole('designer') && !user.hasRole('admin')) throw forbidden('Only designers can create patterns.');
+  return user;
+}
+
+/** Throws unless `user` is an admin (account management). */
+export function authorizeAdmin(user: User | null): User {
+  if (!user) throw unauthorized();
+  if (!user.hasRole('admin')) throw forbidden('Only admins manage accounts.');
+  return user;
+}
+
+/** Throws 401 unless signed in. */
+export function requireUser(user: User | null): User {
+  if (!user) throw unauthorized();
+  return user;
+}

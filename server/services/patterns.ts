@@ -1,0 +1,198 @@
+/**
+ * Patterns and their revisions. Revisions are immutable and numbered from 1
+ * per pattern; a save names the revision it was based on, and a save on a
+ * stale base is refused (409) without writing anything. Numbering happens
+ * in a transaction holding the pattern row (SELECT ... FOR UPDATE), and a
+ * unique index on (patternId, number) backs it up.
+ */
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
+import { SOURCE_MAX_BYTES, type ApiPattern, type ApiPatternListItem, type ApiRevision, type PatternStatusName } from '../../shared/api-schemas.ts';
+import type { ServerContext } from '../context.ts';
+import { Membership, Pattern, Revision, User } from '../models/index.ts';
+import { authorizePattern, canSee, isAllowed, newestVisibleRevision, visibleRevisions, type PatternAction, type PatternRole } from './access.ts';
+import { AppError, badRequest, conflict, forbidden, notFound, tooLarge } from './errors.ts';
+import { toApiRevision, toPerson } from './serialize.ts';
+import { summarizeSource } from './compile-summary.ts';
+
+/** Throws 413 when `source` is over {@link SOURCE_MAX_BYTES} UTF-8 bytes. */
+export function checkSourceSize(source: string): void {
+  const bytes = Buffer.byteLength(source, 'utf8');
+  if (bytes > SOURCE_MAX_BYTES) {
+    throw tooLarge(`The source is ${bytes} bytes; the limit is ${SOURCE_MAX_BYTES} bytes (1 MiB).`, SOURCE_MAX_BYTES);
+  }
+}
+
+/** The pattern as the caller with `role` sees it. */
+export function toApiPattern(pattern: Pattern, role: PatternRole, owner: User | undefined | null): ApiPattern {
+  return {
+    id: pattern.id,
+    title: pattern.title,
+    status: pattern.status,
+    owner: toPerson(owner),
+    latestRevision: newestVisibleRevision(role, pattern),
+    approvedRevision: role === 'owner' || role === 'editor' ? (pattern.approvedRevision ?? null) : null,
+    releasedRevision: pattern.releasedRevision ?? null,
+    myRole: role,
+    createdAt: pattern.createdAt.toISOString(),
+    updatedAt: pattern.updatedAt.toISOString(),
+  };
+}
+
+const withAuthor = { model: User, as: 'author' } as const;
+
+async function writeRevision(t: Transaction, pattern: Pattern, number: number, author: User, source: string, message: string): Promise<Revision> {
+  const { summary, errors, warnings } = summarizeSource(source);
+  const revision = await Revision.create({ patternId: pattern.id, number, source, authorId: author.id, message, summary, errors, warnings }, { transaction: t });
+  revision.author = author;
+  return revision;
+}
+
+/** Creates a pattern owned by `user` with revision 1. */
+export async function createPattern(ctx: ServerContext, user: User, title: string, source: string, message = 'First version'): Promise<{ pattern: ApiPattern; revision: ApiRevision }> {
+  checkSourceSize(source);
+  return ctx.sequelize.transaction(async (t) => {
+    const pattern = await Pattern.create({ ownerId: user.id, title, latestRevision: 1 }, { transaction: t });
+    const revision = await writeRevision(t, pattern, 1, user, source, message);
+    return { pattern: toApiPattern(pattern, 'owner', user), revision: toApiRevision(revision, true) };
+  });
+}
+
+/** Patterns the user may see, most recently changed first. */
+export async function listPatterns(user: User): Promise<ApiPatternListItem[]> {
+  const owned = await Pattern.findAll({ where: { ownerId: user.id } });
+  const memberships = await Membership.findAll({ where: { userId: user.id }, include: [{ model: Pattern, as: 'pattern' }] });
+  const entries: { pattern: Pattern; role: PatternRole }[] = owned.map((pattern) => ({ pattern, role: 'owner' as const }));
+  for (const m of memberships) if (m.pattern && canSee(m.role, m.pattern)) entries.push({ pattern: m.pattern, role: m.role });
+  if (entries.length === 0) return [];
+  const wanted = entries.map((e) => ({ patternId: e.pattern.id, number: newestVisibleRevision(e.role, e.pattern) }));
+  const revisions = await Revision.findAll({
+    where: { [Op.or]: wanted },
+    attributes: ['id', 'patternId', 'number', 'authorId', 'summary', 'errors', 'warnings', 'createdAt', 'message'],
+    include: [withAuthor],
+  });
+  const byKey = new Map(revisions.map((r) => [`${r.patternId}:${r.number}`, r]));
+  return entries
+    .map(({ pattern, role }) => {
+      const number = newestVisibleRevision(role, pattern);
+      const r = byKey.get(`${pattern.id}:${number}`);
+      return {
+        id: pattern.id,
+        title: pattern.title,
+        status: pattern.status,
+        sizes: r?.summary?.sizes.map((s) => s.name) ?? [],
+        latestRevision: number,
+        latestAuthor: toPerson(r?.author),
+        errors: r?.errors ?? 0,
+        warnings: r?.warnings ?? 0,
+        updatedAt: pattern.updatedAt.toISOString(),
+        myRole: role,
+      };
+    })
+    .sort((a, b) => b.updatedAt.localeCompare(a.updatedAt) || b.id - a.id);
+}
+
+/** One pattern and the newest revision the caller may read (with source and summary). */
+export async function getPattern(user: User | null, patternId: number): Promise<{ pattern: ApiPattern; latestRevision: ApiRevision | null }> {
+  const { pattern, role } = await authorizePattern(user, patternId, 'view');
+  const owner = await User.findByPk(pattern.ownerId);
+  const number = newestVisibleRevision(role, pattern);
+  const revision = await Revision.findOne({ where: { patternId: pattern.id, number }, include: [withAuthor] });
+  return { pattern: toApiPattern(pattern, role, owner), latestRevision: revision ? toApiRevision(revision, true) : null };
+}
+
+async function latestWithSource(patternId: number): Promise<ApiRevision | null> {
+  const latest = await Revision.findOne({ where: { patternId }, order: [['number', 'DESC']], include: [withAuthor] });
+  return latest ? toApiRevision(latest, true) : null;
+}
+
+const STALE_MESSAGE = 'Someone saved a newer revision since you started editing. Nothing was overwritten; compare with the latest and save again.';
+
+/**
+ * Saves a new revision on top of `baseRevision`. 409 `stale-revision` with
+ * `latest` when the base is not the newest revision; nothing is written then.
+ */
+export async function saveRevision(ctx: ServerContext, user: User | null, patternId: number, body: { source: string; baseRevision: number; message: string }): Promise<ApiRevision> {
+  const { pattern: checked } = await authorizePattern(user, patternId, 'save-revision');
+  checkSourceSize(body.source);
+  const author = user as User;
+  try {
+    return await ctx.sequelize.transaction(async (t) => {
+      const pattern = await Pattern.findByPk(checked.id, { transaction: t, lock: t.LOCK.UPDATE });
+      if (!pattern) throw notFound('Pattern');
+      if (pattern.latestRevision !== body.baseRevision) throw conflict('stale-revision', STALE_MESSAGE);
+      const number = pattern.latestRevision + 1;
+      const revision = await writeRevision(t, pattern, number, author, body.source, body.message);
+      pattern.latestRevision = number;
+      pattern.changed('updatedAt', true);
+      await pattern.save({ transaction: t });
+      return toApiRevision(revision, true);
+    });
+  } catch (err) {
+    const isStale = err instanceof UniqueConstraintError || (err instanceof AppError && err.code === 'stale-revision');
+    if (isStale) throw conflict('stale-revision', STALE_MESSAGE, { latest: await latestWithSource(checked.id) });
+    throw err;
+  }
+}
+
+/** Revisions the caller may read, newest first, without sources. */
+export async function listRevisions(user: User | null, patternId: number): Promise<ApiRevision[]> {
+  const { pattern, role } = await authorizePattern(user, patternId, 'view');
+  const visible = visibleRevisions(role, pattern);
+  const revisions = await Revision.findAll({
+    where: visible === 'all' ? { patternId: pattern.id } : { patternId: pattern.id, number: visible },
+    attributes: { exclude: ['source', 'summary'] },
+    order: [['number', 'DESC']],
+    include: [withAuthor],
+  });
+  return revisions.map((r) => toApiRevision(r, false));
+}
+
+/** One revision with source and summary; 404 when it does not exist or the caller may not read it. */
+export async function getRevision(user: User | null, patternId: number, number: number): Promise<ApiRevision> {
+  const { pattern, role } = await authorizePattern(user, patternId, 'view');
+  const visible = visibleRevisions(role, pattern);
+  if (!Number.isSafeInteger(number) || (visible !== 'all' && !visible.includes(number))) throw notFound('Revision');
+  const revision = await Revision.findOne({ where: { patternId: pattern.id, number }, include: [withAuthor] });
+  if (!revision) throw notFound('Revision');
+  return toApiRevision(revision, true);
+}
+
+/**
+ * Moves a pattern through review. Owner: draft -> in-review (submit),
+ * in-review -> draft (withdraw), approved -> released. Editor: in-review ->
+ * approved (records the revision approved) or -> draft (changes requested).
+ */
+export async function changeStatus(ctx: ServerContext, user: User | null, patternId: number, status: PatternStatusName): Promise<ApiPattern> {
+  const { pattern: found, role } = await authorizePattern(user, patternId, 'view');
+  // Which policy action this request is: approving and asking for changes are reviews; the rest is the owner's.
+  const action: PatternAction =
+    status === 'approved' ? 'review' : status === 'released' ? 'release' : status === 'draft' && role === 'editor' ? 'review' : 'submit-for-review';
+  if (!isAllowed(role, action, found)) throw forbidden(`As ${role} on this pattern you may not set it to ${status}.`);
+  return ctx.sequelize.transaction(async (t) => {
+    const pattern = await Pattern.findByPk(found.id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!pattern) throw notFound('Pattern');
+    const from = pattern.status;
+    const move = `${role}:${from}->${status}`;
+    switch (move) {
+      case 'owner:draft->in-review':
+      case 'owner:approved->in-review':
+      case 'owner:released->in-review':
+      case 'owner:in-review->draft':
+        break;
+      case 'editor:in-review->approved':
+        pattern.approvedRevision = pattern.latestRevision;
+        break;
+      case 'editor:in-review->draft':
+        break;
+      case 'owner:approved->released':
+        pattern.releasedRevision = pattern.approvedRevision ?? pattern.latestRevision;
+        break;
+      default:
+        throw badRequest('invalid-status-change', `A ${role} cannot move a pattern from ${from} to ${status}.`);
+    }
+    pattern.status = status;
+    await pattern.save({ transaction: t });
+    const owner = await User.findByPk(pattern.ownerId, { transaction: t });
+    return toApiPattern(pattern, role, owner);
+  });
+}
