@@ -80,3 +80,32 @@ export type {
   ShapingStitch,
   SpaceEvenlyRequest,
 } from './shaping';
+
+export {
+  DEFAULT_YARN_ALLOWANCE,
+  LOOP_COURSE_CONSTANT,
+  LOOP_WALE_CONSTANT,
+  METRES_PER_YARD,
+  calibrateFromSwatch,
+  estimateYarn,
+  modelStitchLength,
+} from './yarn-estimate';
+export type {
+  EstimateYarnOptions,
+  StitchLengthModel,
+  SwatchMeasurement,
+  YarnAmount,
+  YarnEstimate,
+  YarnUsage,
+} from './yarn-estimate';
+
+export {
+  BODY_MEASUREMENTS,
+  EASE_CATEGORIES,
+  HAT_NEGATIVE_EASE,
+  compareToBody,
+  easeCategory,
+  finishedSize,
+  suitableWearers,
+} from './sizing';
+export type { BodyComparison, BodyItem, BodyMeasurement, EaseCategory, FinishedSize, Wearer } from './sizing';
