@@ -5,7 +5,16 @@
  * this module only decides which inputs a pattern may use and what "too alike"
  * means for a chart.
  */
-import { colorsNamed, differenceCiede2000, formatHex, parse, wcagContrast } from 'culori';
+import {
+  colorsNamed,
+  differenceCiede2000,
+  filterDeficiencyDeuter,
+  filterDeficiencyProt,
+  filterDeficiencyTrit,
+  formatHex,
+  parse,
+  wcagContrast,
+} from 'culori';
 import type { MeasureOutcome } from './units';
 
 /** A parsed yarn colour. Invariant: `hex` is lower-case "#rrggbb"; r, g, b are integers 0-255. */
@@ -132,21 +141,55 @@ export function coloursTooAlike(a: ColourInput, b: ColourInput, threshold: numbe
   return colourDifference(a, b) < threshold;
 }
 
-/** Two yarns whose colours are too alike, with their ΔE00. */
+/**
+ * Colour vision to compare colours under: typical trichromatic vision, or a
+ * full dichromacy (red-green: protanopia, deuteranopia; blue-yellow:
+ * tritanopia), simulated with culori's deficiency filters at severity 1.
+ */
+export type Vision = 'typical' | 'protanopia' | 'deuteranopia' | 'tritanopia';
+
+/** Every vision we simulate, typical first. */
+export const VISIONS: readonly Vision[] = ['typical', 'protanopia', 'deuteranopia', 'tritanopia'];
+
+const FILTERS = {
+  protanopia: filterDeficiencyProt(1),
+  deuteranopia: filterDeficiencyDeuter(1),
+  tritanopia: filterDeficiencyTrit(1),
+} as const;
+
+/** How a colour appears under a colour vision (as an sRGB hex colour); typical vision returns it unchanged. */
+export function simulateVision(colour: ColourInput, vision: Vision): string {
+  const hex = resolve(colour).hex;
+  if (vision === 'typical') return hex;
+  const seen = parse(hex);
+  // A hex colour always parses; the guard keeps the types honest.
+  return seen === undefined ? hex : formatHex(FILTERS[vision](seen));
+}
+
+/** ΔE00 between two colours as they appear under a colour vision. */
+export function colourDifferenceFor(a: ColourInput, b: ColourInput, vision: Vision): number {
+  return ciede2000(simulateVision(a, vision), simulateVision(b, vision));
+}
+
+/** Two yarns whose colours are too alike, with their ΔE00 under the vision where they are most alike. */
 export interface AlikePair {
   readonly first: string;
   readonly second: string;
   readonly deltaE: number;
+  readonly vision: Vision;
 }
 
 /**
  * Every pair of yarns (in input order, first before second) whose colours are
- * too alike; yarns whose colour does not parse are skipped (the caller reports
- * those). Sorted by ΔE00, most alike first.
+ * too alike under any of the given visions (default: typical vision only);
+ * each pair once, with the vision where it is most alike. Yarns whose colour
+ * does not parse are skipped (the caller reports those). Sorted by ΔE00, most
+ * alike first.
  */
 export function findAlikeColours(
   yarns: readonly { readonly name: string; readonly colour: string }[],
   threshold: number = DEFAULT_ALIKE_THRESHOLD,
+  visions: readonly Vision[] = ['typical'],
 ): AlikePair[] {
   const parsed = yarns.map((y) => ({ name: y.name, outcome: parseYarnColour(y.colour) }));
   const pairs: AlikePair[] = [];
@@ -156,8 +199,12 @@ export function findAlikeColours(
     for (let j = i + 1; j < parsed.length; j++) {
       const b = parsed[j].outcome;
       if (!b.ok) continue;
-      const deltaE = colourDifference(a.value, b.value);
-      if (deltaE < threshold) pairs.push({ first: parsed[i].name, second: parsed[j].name, deltaE });
+      let worst: { deltaE: number; vision: Vision } | null = null;
+      for (const vision of visions) {
+        const deltaE = colourDifferenceFor(a.value, b.value, vision);
+        if (worst === null || deltaE < worst.deltaE) worst = { deltaE, vision };
+      }
+      if (worst !== null && worst.deltaE < threshold) pairs.push({ first: parsed[i].name, second: parsed[j].name, ...worst });
     }
   }
   return pairs.sort((p, q) => p.deltaE - q.deltaE);

@@ -41,15 +41,18 @@ export type {
 
 export {
   DEFAULT_ALIKE_THRESHOLD,
+  VISIONS,
   colourDifference,
+  colourDifferenceFor,
   coloursTooAlike,
   contrastRatio,
   findAlikeColours,
   parseYarnColour,
+  simulateVision,
   suggestColourName,
   symbolInk,
 } from './colour';
-export type { AlikePair, ColourInput, SymbolInk, YarnColour } from './colour';
+export type { AlikePair, ColourInput, SymbolInk, Vision, YarnColour } from './colour';
 
 export { YARN_WEIGHTS, classifyStitchesPer4In, classifyYarnWeight, suggestYarnWeight } from './yarn-weight';
 export type {

@@ -215,12 +215,14 @@ export function lengthToRows(length: Length, gauge: Gauge, rounding: CountRoundi
  * (length <= limit): floor(limit x stitches per unit). A float behind n
  * stitches is n stitch widths long. Example: 1 in at 7 sts/in -> 7 stitches
  * (exactly 1 in); 6 stitches are about 0.86 in. Returns 0 when even one stitch
- * is longer than the limit. Requires a limit value >= 0 (RangeError otherwise).
+ * is longer than the limit; an infinite limit gives Infinity (no limit).
+ * Requires a limit value >= 0 (RangeError on a negative or NaN limit).
  */
 export function floatLimitInStitches(limit: Length, gauge: Gauge): number {
-  if (!(Number.isFinite(limit.value) && limit.value >= 0)) {
-    throw new RangeError(`a float limit must be a finite length >= 0 (got ${String(limit.value)} ${limit.unit})`);
+  if (!(limit.value >= 0)) {
+    throw new RangeError(`a float limit must be a length >= 0 (got ${String(limit.value)} ${limit.unit})`);
   }
+  if (limit.value === Number.POSITIVE_INFINITY) return Number.POSITIVE_INFINITY;
   const raw = limit.unit === 'in' ? limit.value * gauge.stitchesPerInch : limit.value * gauge.stitchesPerCm;
   return roundCount(raw, 'down');
 }

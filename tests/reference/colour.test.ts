@@ -3,6 +3,7 @@
 // "General-purpose oracles"); WCAG contrast against wcag-contrast (same list).
 import { diff as ciede2000, rgbaToLab } from 'color-diff';
 import { hex as wcagHex } from 'wcag-contrast';
+import { differenceCiede2000 } from 'culori';
 import { describe, expect, it } from 'vitest';
 import { colourDifference, contrastRatio, parseYarnColour, symbolInk } from '../../shared/measure';
 
@@ -32,6 +33,21 @@ describe('CIEDE2000 (references.md oracles: color-diff)', () => {
   it('CSS names resolve to the same colour as their hex (navy = #000080, CSS Color 4 named colours)', () => {
     const oracle = ciede2000(rgbaToLab(rgbOf('#000080')), rgbaToLab(rgbOf('#000000')));
     expect(colourDifference('navy', 'black')).toBeCloseTo(oracle, 2);
+  });
+});
+
+describe('the colour library we build on computes CIEDE2000 itself (not CIE76)', () => {
+  // CIELAB pairs and ΔE00 from the CIEDE2000 supplementary test data (Sharma,
+  // Wu and Dalal, 2005), pairs 1-3 — values from memory, so both culori (which
+  // colour.ts calls) and color-diff (independent) are checked against them.
+  it.each([
+    [[50, 2.6772, -79.7751], [50, 0, -82.7485], 2.0425],
+    [[50, 3.1571, -77.2803], [50, 0, -82.7485], 2.8615],
+    [[50, 2.8361, -74.02], [50, 0, -82.7485], 3.4412],
+  ])('Lab %j vs %j: ΔE00 %s', (p, q, expected) => {
+    const culori = differenceCiede2000()({ mode: 'lab65', l: p[0], a: p[1], b: p[2] }, { mode: 'lab65', l: q[0], a: q[1], b: q[2] });
+    expect(culori).toBeCloseTo(expected, 3);
+    expect(ciede2000({ L: p[0], a: p[1], b: p[2] }, { L: q[0], a: q[1], b: q[2] })).toBeCloseTo(expected, 3);
   });
 });
 

@@ -4,10 +4,13 @@ import { describe, expect, it } from 'vitest';
 import {
   DEFAULT_ALIKE_THRESHOLD,
   colourDifference,
+  VISIONS,
+  colourDifferenceFor,
   coloursTooAlike,
   contrastRatio,
   findAlikeColours,
   parseYarnColour,
+  simulateVision,
   suggestColourName,
   symbolInk,
 } from '../../../shared/measure';
@@ -92,6 +95,32 @@ describe('colour difference and "too alike"', () => {
     ]);
     expect(pairs.map((p) => `${p.first}${p.second}`)).toEqual(['AE', 'AB', 'BE']);
     expect(pairs[0].deltaE).toBeCloseTo(0, 9);
+  });
+});
+
+describe('colour vision', () => {
+  it('brown and olive green are clear to typical vision but too alike to a red-green colour-blind knitter', () => {
+    expect(colourDifferenceFor('saddlebrown', 'darkolivegreen', 'typical')).toBeGreaterThan(DEFAULT_ALIKE_THRESHOLD);
+    expect(colourDifferenceFor('saddlebrown', 'darkolivegreen', 'deuteranopia')).toBeLessThan(DEFAULT_ALIKE_THRESHOLD);
+    const yarns = [
+      { name: 'Bark', colour: 'saddlebrown' },
+      { name: 'Moss', colour: 'darkolivegreen' },
+    ];
+    expect(findAlikeColours(yarns)).toEqual([]);
+    const pairs = findAlikeColours(yarns, DEFAULT_ALIKE_THRESHOLD, VISIONS);
+    expect(pairs).toHaveLength(1);
+    expect(pairs[0].vision).toBe('deuteranopia');
+    expect(pairs[0].deltaE).toBeCloseTo(colourDifferenceFor('saddlebrown', 'darkolivegreen', 'deuteranopia'), 9);
+  });
+
+  it('typical vision leaves a colour as it is; greys stay grey under every simulation (property)', () => {
+    fc.assert(
+      fc.property(hexColour, fc.integer({ min: 0, max: 255 }), (c, level) => {
+        expect(simulateVision(c, 'typical')).toBe(c);
+        const grey = `#${level.toString(16).padStart(2, '0').repeat(3)}`;
+        for (const vision of VISIONS) expect(colourDifferenceFor(grey, simulateVision(grey, vision), 'typical')).toBeLessThan(1);
+      }),
+    );
   });
 });
 

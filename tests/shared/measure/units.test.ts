@@ -121,11 +121,12 @@ describe('float limit in stitches', () => {
     expect(floatLimitInStitches({ value: 10, unit: 'cm' }, g)).toBe(27);
   });
 
-  it('refuses a negative or non-finite limit (programmer error)', () => {
+  it('refuses a negative or NaN limit (programmer error); an infinite limit means no limit', () => {
     const g = gaugeFromPerInch(7, 9);
     expect(() => floatLimitInStitches({ value: -1, unit: 'in' }, g)).toThrow(RangeError);
     expect(() => floatLimitInStitches({ value: Number.NaN, unit: 'cm' }, g)).toThrow(RangeError);
     expect(floatLimitInStitches({ value: 0, unit: 'in' }, g)).toBe(0);
+    expect(floatLimitInStitches({ value: Number.POSITIVE_INFINITY, unit: 'cm' }, g)).toBe(Number.POSITIVE_INFINITY);
   });
 });
 
