@@ -32,5 +32,8 @@ export default defineConfig({
     // Fonts are small woff2 files; keep them as files rather than inlined.
     assetsInlineLimit: 0,
     reportCompressedSize: true,
+    // dist/.vite/manifest.json maps each page to its chunks; the bundle-size
+    // measurement (tests/e2e/bundle-size.ts) reads it.
+    manifest: true,
   },
 });

@@ -8,11 +8,14 @@ import { createBrowserRouter, Navigate } from 'react-router';
 import { AppShell } from './components/AppShell';
 import { RequireSession } from './components/RequireSession';
 import { RouteError } from './components/RouteError';
+import { Loading } from './components/Loading';
 
 export const router = createBrowserRouter([
   {
     element: <AppShell />,
     errorElement: <RouteError />,
+    // Shown while the first page's lazy module loads.
+    hydrateFallbackElement: <Loading />,
     children: [
       { index: true, element: <Navigate to="/patterns" replace /> },
       { path: 'sign-in', lazy: () => import('./routes/SignIn') },

@@ -1,25 +1,29 @@
 /**
  * Completion for Loopwright sources: stitch names and keywords from the
- * compiler's own tables, and the yarn, chart, segment and marker names the
+ * compiler's own tables (sent by the compile worker, see
+ * {@link setVocabulary}), and the yarn, chart, segment and marker names the
  * document already uses (the lexer's `yarn` and `name` tokens).
  */
 import { autocompletion, type Completion, type CompletionContext, type CompletionResult } from '@codemirror/autocomplete';
-import { KEYWORDS, STITCH_NAMES } from '../../shared';
 import { compiledField } from './compile-state';
 import { currentTokens } from './highlight';
 
-const stitchOptions: Completion[] = [...new Set(STITCH_NAMES)]
-  .filter((s) => /^[A-Za-z]/.test(s))
-  .map((label) => ({ label, type: 'function', detail: 'stitch', boost: 2 }));
-const keywordOptions: Completion[] = [...new Set(KEYWORDS)].map((label) => ({ label, type: 'keyword', boost: 1 }));
+let stitchOptions: Completion[] = [];
+let keywordOptions: Completion[] = [];
 
-/** Completion source: words at the cursor, with document names first. */
+/** Install the compiler's stitch words and keywords (the same for every editor). */
+export function setVocabulary(stitches: readonly string[], keywords: readonly string[]): void {
+  stitchOptions = [...new Set(stitches)].filter((s) => /^[A-Za-z]/.test(s)).map((label) => ({ label, type: 'function', detail: 'stitch', boost: 2 }));
+  keywordOptions = [...new Set(keywords)].map((label) => ({ label, type: 'keyword', boost: 1 }));
+}
+
+/** Completion source: the word at the cursor, with the document's own names first. */
 export function loopCompletions(context: CompletionContext): CompletionResult | null {
   const word = context.matchBefore(/[A-Za-z_][A-Za-z0-9_-]*/);
   if (!word && !context.explicit) return null;
   const from = word ? word.from : context.pos;
+  const tokens = currentTokens(context.state);
   // Inside a comment or quoted text there is nothing to complete.
-  const tokens = currentTokens(context.view!);
   const here = tokens.find((t) => t.from < context.pos && context.pos <= t.to);
   if (here && (here.kind === 'comment' || here.kind === 'string')) return null;
 
@@ -33,7 +37,8 @@ export function loopCompletions(context: CompletionContext): CompletionResult | 
     if (t.kind !== 'yarn' && t.kind !== 'name') continue;
     if (word && t.from === word.from) continue; // the word being typed
     const text = doc.sliceString(t.from, t.to);
-    if (!names.has(text)) names.set(text, { label: text, type: t.kind === 'yarn' ? 'variable' : 'constant', detail: t.kind === 'yarn' ? 'yarn' : 'name', boost: 3 });
+    if (!/^[A-Za-z_][A-Za-z0-9_-]*$/.test(text) || names.has(text)) continue;
+    names.set(text, { label: text, type: t.kind === 'yarn' ? 'variable' : 'constant', detail: t.kind === 'yarn' ? 'yarn' : 'name', boost: 3 });
   }
   return {
     from,

@@ -1,37 +1,26 @@
 /**
  * Syntax colouring for Loopwright sources, straight from the compiler's own
- * lexer (`highlightTokens` in shared/), so the editor and the compiler can
- * never disagree about what a word is.
+ * lexer (`highlightTokens` in shared/, run in the compile worker), so the
+ * editor and the compiler never disagree about what a word is.
  *
- * The whole text is re-lexed on each change (the lexer is linear and fast),
- * but decorations are built only for the visible ranges.
+ * Tokens arrive a moment after each edit; until then the previous colours
+ * are mapped through the edit, so nothing flickers.
  */
-import { RangeSetBuilder } from '@codemirror/state';
-import { Decoration, EditorView, ViewPlugin, type DecorationSet, type ViewUpdate } from '@codemirror/view';
-import { highlightTokens } from '../../shared';
+import { RangeSetBuilder, StateEffect, StateField, type EditorState } from '@codemirror/state';
+import { Decoration, EditorView, type DecorationSet } from '@codemirror/view';
+import type { HighlightToken, TokensMessage } from './protocol';
 
-/** One coloured token: offsets into the document, `to` exclusive. */
-export type HighlightToken = ReturnType<typeof highlightTokens>[number];
-/** The closed set of token kinds the lexer reports. */
-export type TokenKind = HighlightToken['kind'];
-
-const kinds: TokenKind[] = ['keyword', 'stitch', 'number', 'comment', 'string', 'yarn', 'colour', 'name', 'punctuation', 'invalid'];
+const kinds: HighlightToken['kind'][] = ['keyword', 'stitch', 'number', 'comment', 'string', 'yarn', 'colour', 'name', 'punctuation', 'invalid'];
 const marks = new Map(kinds.map((k) => [k, Decoration.mark({ class: `lw-${k}` })]));
 
-/** Tokens of `text`, sorted and clipped so decorations never overlap. */
-export function tokensOf(text: string): HighlightToken[] {
-  let tokens: HighlightToken[];
-  try {
-    tokens = highlightTokens(text);
-  } catch {
-    return []; // colouring is a nicety; never let it break editing
-  }
+/** Tokens sorted and clipped to `length` so decorations never overlap. */
+export function normalizeTokens(tokens: readonly HighlightToken[], length: number): HighlightToken[] {
   const sorted = [...tokens].sort((a, b) => a.from - b.from || a.to - b.to);
   const out: HighlightToken[] = [];
   let end = 0;
   for (const t of sorted) {
     const from = Math.max(t.from, end);
-    const to = Math.min(t.to, text.length);
+    const to = Math.min(t.to, length);
     if (to > from) {
       out.push(from === t.from && to === t.to ? t : { ...t, from, to });
       end = to;
@@ -40,50 +29,51 @@ export function tokensOf(text: string): HighlightToken[] {
   return out;
 }
 
-/** Index of the first token ending after `pos` (binary search). */
-function firstAfter(tokens: HighlightToken[], pos: number): number {
-  let lo = 0;
-  let hi = tokens.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (tokens[mid].to <= pos) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
+/** Effect carrying the tokens of the current text. */
+export const setTokens = StateEffect.define<HighlightToken[]>();
+
+interface TokenState { tokens: HighlightToken[]; decorations: DecorationSet; fresh: boolean }
+
+function build(tokens: HighlightToken[]): DecorationSet {
+  const builder = new RangeSetBuilder<Decoration>();
+  for (const t of tokens) builder.add(t.from, t.to, marks.get(t.kind)!);
+  return builder.finish();
 }
 
-class LoopHighlighter {
-  tokens: HighlightToken[];
-  decorations: DecorationSet;
-
-  constructor(view: EditorView) {
-    this.tokens = tokensOf(view.state.doc.toString());
-    this.decorations = this.build(view);
-  }
-
-  update(u: ViewUpdate): void {
-    if (u.docChanged) this.tokens = tokensOf(u.state.doc.toString());
-    if (u.docChanged || u.viewportChanged) this.decorations = this.build(u.view);
-  }
-
-  build(view: EditorView): DecorationSet {
-    const builder = new RangeSetBuilder<Decoration>();
-    for (const range of view.visibleRanges) {
-      for (let i = firstAfter(this.tokens, range.from); i < this.tokens.length; i++) {
-        const t = this.tokens[i];
-        if (t.from >= range.to) break;
-        const mark = marks.get(t.kind);
-        if (mark) builder.add(t.from, t.to, mark);
+/** Tokens and their decorations; `fresh` is false between an edit and its tokens. */
+export const tokenField = StateField.define<TokenState>({
+  create: () => ({ tokens: [], decorations: Decoration.none, fresh: false }),
+  update(value, tr) {
+    for (const e of tr.effects) {
+      if (e.is(setTokens)) {
+        const tokens = normalizeTokens(e.value, tr.state.doc.length);
+        return { tokens, decorations: build(tokens), fresh: true };
       }
     }
-    return builder.finish();
-  }
-}
+    if (!tr.docChanged) return value;
+    // Keep approximate tokens (for completion) until the worker's arrive.
+    const tokens: HighlightToken[] = [];
+    for (const t of value.tokens) {
+      const from = tr.changes.mapPos(t.from, 1);
+      const to = tr.changes.mapPos(t.to, -1);
+      if (to > from) tokens.push({ from, to, kind: t.kind });
+    }
+    return { tokens, decorations: value.decorations.map(tr.changes), fresh: false };
+  },
+  provide: (f) => EditorView.decorations.from(f, (v) => v.decorations),
+});
 
 /** The highlighting extension. */
-export const loopHighlighting = ViewPlugin.fromClass(LoopHighlighter, { decorations: (p) => p.decorations });
+export const loopHighlighting = tokenField;
 
-/** The tokens the highlighter holds for `view` (for completion), or an empty list. */
-export function currentTokens(view: EditorView): HighlightToken[] {
-  return view.plugin(loopHighlighting)?.tokens ?? [];
+/** Apply a worker's tokens if they belong to the editor's current text. */
+export function pushTokens(view: EditorView, m: TokensMessage): void {
+  const doc = view.state.doc;
+  if (doc.length !== m.source.length || doc.toString() !== m.source) return;
+  view.dispatch({ effects: setTokens.of(m.tokens) });
+}
+
+/** The tokens of the current text (right after an edit: the previous ones, mapped through it). */
+export function currentTokens(state: EditorState): HighlightToken[] {
+  return state.field(tokenField, false)?.tokens ?? [];
 }

@@ -1,17 +1,44 @@
 /**
  * Messages between the workspace and its compile worker.
  *
- * The worker answers with a {@link CompiledView}: the parts of the compile
- * result the studio shows (header, diagnostics, per-round counts), not the
- * stitch-level model, so the answer stays small to copy between threads even
- * for a 300-round pattern in several sizes.
+ * The compiler (and its lexer library) lives only in the worker, so the
+ * page's own bundle stays small. The page sends every new text; the worker
+ * answers at once with the tokens for colouring, and after a quiet spell
+ * (debounced) with a {@link CompiledView}: the parts of the compile result
+ * the studio shows (header, diagnostics, per-round counts), not the
+ * stitch-level model, so the answer stays small to copy between threads
+ * even for a 300-round pattern in several sizes.
  */
 import type { Diagnostic, PatternHeader, RoundSummary } from '../../shared';
 
-/** Ask the worker to compile `source`; `id` increases with every request. */
-export interface CompileRequest {
+/** One coloured token (offsets into the source, `to` exclusive). Kinds as `highlightTokens` reports them. */
+export interface HighlightToken {
+  from: number;
+  to: number;
+  kind: 'keyword' | 'stitch' | 'number' | 'comment' | 'string' | 'yarn' | 'colour' | 'name' | 'punctuation' | 'invalid';
+}
+
+/** Page → worker: a new text. `id` increases with every message; `delayMs` is the compile debounce. */
+export interface SourceMessage {
+  type: 'source';
   id: number;
   source: string;
+  delayMs: number;
+}
+
+/** Worker → page, once at start: the words completion offers. */
+export interface VocabularyMessage {
+  type: 'vocabulary';
+  stitches: readonly string[];
+  keywords: readonly string[];
+}
+
+/** Worker → page, right after each text: its tokens. */
+export interface TokensMessage {
+  type: 'tokens';
+  id: number;
+  source: string;
+  tokens: HighlightToken[];
 }
 
 /** Per-size counts as the panes show them. */
@@ -21,9 +48,10 @@ export interface SizeCounts {
   rounds: RoundSummary[];
 }
 
-/** What the studio reads of one compile. Spans refer to `source`. */
+/** Worker → page after the debounce: what the studio reads of one compile. Spans refer to `source`. */
 export interface CompiledView {
-  /** The request this answers. */
+  type: 'compiled';
+  /** The message this answers. */
   id: number;
   /** The exact text that was compiled (so spans can be trusted against it). */
   source: string;
@@ -36,3 +64,5 @@ export interface CompiledView {
   /** Set when the compiler itself failed (a bug, never a user error). */
   crash?: string;
 }
+
+export type WorkerAnswer = VocabularyMessage | TokensMessage | CompiledView;

@@ -79,6 +79,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
             <span key={s.name} className="tabular">{i > 0 && ' · '}<strong className="font-semibold text-tide-900">{s.name}</strong> {s.castOn}</span>
           ))}
         </span>
+        {anyBacking && <span>Counts read total (front + backing)</span>}
         <span>
           Float limit {view.header.floatLimit.value} {view.header.floatLimit.unit}
           {limit !== null ? ` ≈ ${limit.toFixed(1)} sts` : ' (no gauge declared)'}
@@ -96,7 +97,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
               {sizeNames.map((s) => (
                 <th key={s} scope="col" className="sticky top-0 z-10 border-b border-l border-tide-200 bg-tide-50 px-3 py-1.5 text-left text-caption font-semibold text-tide-700">
                   Size {s}
-                  <span className="block font-normal text-tide-600">{anyBacking ? 'total (front + backing) · float' : 'stitches · longest float'}</span>
+                  <span className="block font-normal text-tide-600">sts · longest float</span>
                 </th>
               ))}
             </tr>

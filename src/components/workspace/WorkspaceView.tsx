@@ -4,19 +4,20 @@
  * a message, drafts kept locally, and stale-save conflicts resolved without
  * losing either side.
  */
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
 import type { Span } from '../../../shared';
 import type { Pattern, Revision } from '../../api/types';
 import { conflictOf, useSaveRevision } from '../../api/usePatterns';
 import { errorText } from '../../api/client';
 import { LoopEditor, type EditorHandle } from '../../editor/LoopEditor';
 import { pushDiagnostics } from '../../editor/lint';
+import { pushTokens } from '../../editor/highlight';
+import { setVocabulary } from '../../editor/completion';
 import { roundsOnLine } from '../../editor/rounds';
 import { useCompiler } from '../../editor/useCompiler';
 import type { QuickFix } from '../../editor/quick-fix';
 import { Notice } from '../Notice';
 import { relativeTime } from '../format';
-import { ConflictDialog } from './ConflictDialog';
 import { CountsPane } from './CountsPane';
 import { HelpOverlay } from './HelpOverlay';
 import { PaneTabs, type PaneTab } from './PaneTabs';
@@ -29,6 +30,9 @@ import { writeSetAside } from './drafts';
 
 type PaneKey = 'counts' | 'problems';
 
+// Loaded only when a save meets a newer revision (it brings the text-diff library).
+const ConflictDialog = lazy(() => import('./ConflictDialog').then((m) => ({ default: m.ConflictDialog })));
+
 export interface WorkspaceViewProps {
   patternId: string;
   pattern: Pattern;
@@ -37,7 +41,10 @@ export interface WorkspaceViewProps {
 
 export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps) {
   const session = useEditingSession(patternId, latest);
-  const compiler = useCompiler();
+  const compiler = useCompiler({
+    onTokens: (m) => { if (editor.current) pushTokens(editor.current.view, m); },
+    onVocabulary: (m) => setVocabulary(m.stitches, m.keywords),
+  });
   const save = useSaveRevision(patternId);
   const editor = useRef<EditorHandle | null>(null);
   const [pane, setPane] = useState<PaneKey>('counts');
@@ -62,14 +69,14 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     return () => clearTimeout(t);
   }, [toast]);
 
-  const { schedule } = compiler;
+  const { update } = compiler;
   const { onDocChange } = session;
-  const handleDocChange = useCallback((doc: string) => { onDocChange(doc); schedule(doc); }, [onDocChange, schedule]);
+  const handleDocChange = useCallback((doc: string) => { onDocChange(doc); update(doc); }, [onDocChange, update]);
   const initialDoc = session.initialDoc;
   const handleReady = useCallback((h: EditorHandle | null) => {
     editor.current = h;
-    if (h) schedule(initialDoc, true);
-  }, [schedule, initialDoc]);
+    if (h) update(initialDoc, true);
+  }, [update, initialDoc]);
   const jump = useCallback((span: Span) => editor.current?.jumpTo(span.from, span.to), []);
   const applyFix = useCallback((fix: QuickFix) => {
     const h = editor.current;
@@ -215,6 +222,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
         onClose={() => setSaveOpen(false)}
       />
       {conflict && (
+        <Suspense fallback={<div role="status" className="fixed inset-0 z-50 flex items-center justify-center bg-tide-950/40 text-white">Comparing versions…</div>}>
         <ConflictDialog
           open
           mine={session.docRef.current}
@@ -225,8 +233,9 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
           onTakeTheirs={takeTheirs}
           onClose={() => setConflict(null)}
         />
+        </Suspense>
       )}
-      <HelpOverlay open={helpOpen} onClose={() => setHelpOpen(false)} />
+      <HelpOverlay open={helpOpen} onClose={() => setHelpOpen(false)} panes={tabs.map((t) => t.label)} />
       {toast && (
         <div role="status" className="fixed bottom-10 left-1/2 z-40 -translate-x-1/2 rounded-full bg-tide-900 px-4 py-2 text-sm text-white shadow-float">
           {toast}

@@ -14,6 +14,11 @@ export function keyLabel(key: string): string {
   return key;
 }
 
+/** The pane shortcuts for the panes a workspace has, in tab order (Alt+1, Alt+2, …). */
+export function paneShortcuts(paneLabels: readonly string[]): Shortcut[] {
+  return paneLabels.slice(0, 9).map((label, i) => ({ keys: ['Alt', String(i + 1)], label: `Show the ${label} pane`, group: 'Panes' }));
+}
+
 /** One documented shortcut. */
 export interface Shortcut {
   keys: string[];
@@ -25,10 +30,6 @@ export const SHORTCUTS: readonly Shortcut[] = [
   { keys: ['Mod', 'S'], label: 'Save a revision (asks for a message)', group: 'Saving' },
   { keys: ['F8'], label: 'Go to the next problem', group: 'Problems' },
   { keys: ['Shift', 'F8'], label: 'Go to the previous problem', group: 'Problems' },
-  { keys: ['Alt', '1'], label: 'Show the Counts pane', group: 'Panes' },
-  { keys: ['Alt', '2'], label: 'Show the Problems pane', group: 'Panes' },
-  { keys: ['Alt', '3'], label: 'Show the Chart pane (when available)', group: 'Panes' },
-  { keys: ['Alt', '4'], label: 'Show the Instructions pane (when available)', group: 'Panes' },
   { keys: ['Alt', '0'], label: 'Move focus back to the editor', group: 'Panes' },
   { keys: ['Ctrl', 'Space'], label: 'Suggest stitches, keywords and names', group: 'Editing' },
   { keys: ['Mod', 'F'], label: 'Find and replace', group: 'Editing' },

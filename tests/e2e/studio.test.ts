@@ -1,0 +1,161 @@
+/**
+ * Browser tests of the studio's main flows, in Debian's Chromium against the
+ * real app and database:
+ * - sign in as the demo designer, open a pattern, break a round's count and
+ *   see the problem with the right round and size, fix it and see it clear,
+ *   save, reload and see the revision;
+ * - a stale save from a second tab meets a 409, shows the newer revision
+ *   beside the designer's text, and "keep mine" saves on top of it.
+ *
+ * Stitch arithmetic of the test pattern (common practice, e.g. published
+ * abbreviation lists): k and p use one stitch and make one; m1 makes one
+ * from none. So (k4, m1) worked 21/24/27 times uses 84/96/108 stitches and
+ * leaves 105/120/135.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { DESIGNER, replaceEditorLine, shot, signIn, startHarness, type Harness } from './harness.ts';
+
+const SOURCE = [
+  'title "Tidepool Cowl"',
+  'designer "Maren Tolley"',
+  'sizes S M L',
+  'gauge 28 sts and 32 rounds per 10 cm',
+  'yarn A "Sea lavender" #6a5397',
+  'yarn B "Foam" #eeeae0',
+  'work in the round',
+  'cast on 84/96/108 in A',
+  'rounds 1-4: (k1, p1) to end',
+  'round 5: (k4, m1) 21/24/27 times',
+  'round 6: k to end',
+  'rounds 7-10: (k3 in A, k2 in B) to end',
+  '',
+].join('\n');
+const ROUND5_LINE = 10;
+
+let h: Harness;
+let token: string;
+
+/** A fresh pattern for one test, owned by the demo designer. */
+async function newPattern(title: string): Promise<number> {
+  const res = await h.api<{ pattern: { id: number } }>(token, 'POST', '/api/patterns', { title, source: SOURCE });
+  expect(res.status).toBe(201);
+  return res.body.pattern.id;
+}
+
+async function openPattern(page: Page, id: number): Promise<void> {
+  await page.goto(`${h.baseUrl}/patterns/${id}`);
+  await page.locator('.cm-content').waitFor();
+  await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 15_000 }).toContain('Adds up');
+}
+
+beforeAll(async () => {
+  h = await startHarness();
+  token = await h.apiToken(DESIGNER.email, DESIGNER.password);
+}, 180_000);
+
+afterAll(async () => {
+  await h?.stop();
+});
+
+describe('the studio in Chromium', () => {
+  it('finds a broken round in the right size, clears it when fixed, saves and shows the revision after a reload', async () => {
+    const title = `Tidepool Cowl ${Date.now()}`;
+    const id = await newPattern(title);
+    const page = await h.context.newPage();
+    await signIn(page, h.baseUrl);
+    await shot(page, '01-library');
+
+    await page.getByRole('link', { name: title }).click();
+    await page.waitForURL(new RegExp(`/patterns/${id}$`));
+    await page.locator('.cm-content').waitFor();
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 15_000 }).toContain('Adds up in 3 sizes');
+    // The counts pane shows the count after round 5 for every size: 105/120/135.
+    const round5 = page.getByRole('row', { name: /^Round 5/ });
+    await expect.poll(() => round5.textContent()).toMatch(/105.*120.*135/);
+    await shot(page, '02-workspace-clean');
+
+    // Size L now works 26 × 4 = 104 of its 108 stitches.
+    await replaceEditorLine(page, ROUND5_LINE, 'round 5: (k4, m1) 21/24/26 times');
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toMatch(/error/);
+    await page.getByRole('tab', { name: /Problems/ }).click();
+    const problems = page.getByRole('list', { name: 'Problems' }).getByRole('listitem');
+    await expect.poll(() => problems.count()).toBeGreaterThan(0);
+    const first = problems.first();
+    const text = (await first.textContent()) ?? '';
+    expect(text).toContain('round 5');
+    expect(text).toContain('104');
+    expect(text).toContain('108');
+    expect(text).toContain('size L');
+    // Sizes S and M still add up: no problem names them.
+    const all = (await problems.allTextContents()).join('\n');
+    expect(all).not.toMatch(/size [SM]\b/);
+    await expect.poll(() => page.locator('.cm-lint-marker-error').count()).toBeGreaterThan(0);
+    await shot(page, '03-workspace-problem');
+
+    // Clicking the problem moves the cursor to round 5's line.
+    await first.getByRole('button').first().click();
+    const activeLine = await page.locator('.cm-activeLine').textContent();
+    expect(activeLine).toContain('round 5');
+
+    await replaceEditorLine(page, ROUND5_LINE, 'round 5: (k4, m1) 21/24/27 times  # even increases');
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toContain('Adds up');
+    await expect.poll(() => problems.count()).toBe(0);
+    expect(await page.getByTestId('unsaved').isVisible()).toBe(true);
+
+    await page.keyboard.press('Control+s');
+    const dialog = page.getByRole('dialog', { name: 'Save a revision' });
+    await dialog.getByLabel('What changed?').fill('Note on the even increases');
+    await dialog.getByRole('button', { name: 'Save revision' }).click();
+    await page.getByText('Saved as revision #2.').waitFor();
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+
+    await page.reload();
+    await page.locator('.cm-content').waitFor();
+    await expect.poll(() => page.getByTestId('revision-line').textContent()).toContain('Revision #2 by Maren Tolley');
+    expect(await page.getByTestId('revision-line').textContent()).toContain('Note on the even increases');
+    expect(await page.locator('.cm-content').textContent()).toContain('# even increases');
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+
+    const revisions = await h.api<{ revisions: { number: number }[] }>(token, 'GET', `/api/patterns/${id}/revisions`);
+    expect(revisions.body.revisions.map((r) => r.number).sort()).toEqual([1, 2]);
+    await page.close();
+  }, 120_000);
+
+  it('meets a save from a second tab with a comparison, and keeps the designer’s text on top of the newer revision', async () => {
+    const id = await newPattern(`Lantern Mitts ${Date.now()}`);
+    const first = await h.context.newPage();
+    await openPattern(first, id);
+    const second = await h.context.newPage();
+    await openPattern(second, id);
+
+    await replaceEditorLine(second, ROUND5_LINE, 'round 5: (k4, m1) 21/24/27 times  # from the second tab');
+    await second.getByRole('button', { name: 'Save…' }).click();
+    await second.getByRole('dialog', { name: 'Save a revision' }).getByLabel('What changed?').fill('Second tab');
+    await second.getByRole('button', { name: 'Save revision' }).click();
+    await second.getByText('Saved as revision #2.').waitFor();
+
+    await first.bringToFront();
+    await replaceEditorLine(first, 11, 'round 6: k to end  # from the first tab');
+    await first.getByRole('button', { name: 'Save…' }).click();
+    await first.getByRole('dialog', { name: 'Save a revision' }).getByLabel('What changed?').fill('First tab');
+    await first.getByRole('button', { name: 'Save revision' }).click();
+
+    const conflict = first.getByRole('dialog', { name: /Revision #2 was saved while you were editing/ });
+    await conflict.waitFor();
+    expect(await conflict.getByRole('region', { name: 'Your version' }).textContent()).toContain('# from the first tab');
+    expect(await conflict.getByRole('region', { name: 'Revision 2' }).textContent()).toContain('# from the second tab');
+    await shot(first, '04-conflict');
+
+    await conflict.getByRole('button', { name: /Keep mine and save on top of #2/ }).click();
+    await first.getByText('Saved as revision #3.').waitFor();
+
+    const latest = await h.api<{ latestRevision: { number: number; source: string } }>(token, 'GET', `/api/patterns/${id}`);
+    expect(latest.body.latestRevision.number).toBe(3);
+    expect(latest.body.latestRevision.source).toContain('# from the first tab');
+    const two = await h.api<{ revision: { source: string } }>(token, 'GET', `/api/patterns/${id}/revisions/2`);
+    expect(two.body.revision.source).toContain('# from the second tab');
+    await first.close();
+    await second.close();
+  }, 120_000);
+});
