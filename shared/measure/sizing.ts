@@ -112,7 +112,7 @@ export interface BodyComparison {
    * Hats only: whether the hat is 5–10 % smaller than some head in the range
    * (negative ease as hats are usually worn); null for other items.
    */
-  readonly withinHatGuidance: boolean | null;
+  readonly isWithinHatGuidance: boolean | null;
   readonly message: string;
 }
 
@@ -136,16 +136,16 @@ export function compareToBody(finished: Length | DualLength, item: BodyItem, wea
   const middle = (body.minIn + body.maxIn) / 2;
   const easeMiddle = finishedIn - middle;
   const category = easeCategory(easeMiddle);
-  let withinHatGuidance: boolean | null = null;
+  let isWithinHatGuidance: boolean | null = null;
   if (item === 'hat') {
     // The hat fits some head in the range when finished / head lies in [0.90, 0.95].
     const smallestHead = finishedIn / (1 - HAT_NEGATIVE_EASE.minFraction);
     const largestHead = finishedIn / (1 - HAT_NEGATIVE_EASE.maxFraction);
-    withinHatGuidance = largestHead >= body.minIn - EASE_EPSILON && smallestHead <= body.maxIn + EASE_EPSILON;
+    isWithinHatGuidance = largestHead >= body.minIn - EASE_EPSILON && smallestHead <= body.maxIn + EASE_EPSILON;
   }
   const percent = Math.round((easeMiddle / middle) * 1000) / 10;
   const guidance =
-    withinHatGuidance === null ? '' : withinHatGuidance ? '; within the usual 5–10 % negative ease for hats' : '; outside the usual 5–10 % negative ease for hats';
+    isWithinHatGuidance === null ? '' : isWithinHatGuidance ? '; within the usual 5–10 % negative ease for hats' : '; outside the usual 5–10 % negative ease for hats';
   const message =
     `${fmt(finishedIn)} in finished against a ${body.wearer} ${body.measured} of ${fmt(body.minIn)}–${fmt(body.maxIn)} in: ` +
     `${easeMiddle >= 0 ? '+' : ''}${fmt(easeMiddle)} in of ease at the middle (${percent >= 0 ? '+' : ''}${percent} %), ${category.replace('-', ' ')}${guidance}.`;
@@ -159,7 +159,7 @@ export function compareToBody(finished: Length | DualLength, item: BodyItem, wea
     },
     easeFractionAtMiddle: easeMiddle / middle,
     category,
-    withinHatGuidance,
+    isWithinHatGuidance,
     message,
   };
 }
@@ -174,7 +174,7 @@ export function suitableWearers(finished: Length | DualLength, item: BodyItem): 
   const finishedIn = 'unit' in finished ? toInches(finished) : finished.in;
   return BODY_MEASUREMENTS.filter((b) => b.item === item)
     .filter((b) => {
-      if (item === 'hat') return compareToBody({ value: finishedIn, unit: 'in' }, 'hat', b.wearer)?.withinHatGuidance === true;
+      if (item === 'hat') return compareToBody({ value: finishedIn, unit: 'in' }, 'hat', b.wearer)?.isWithinHatGuidance === true;
       return finishedIn >= b.minIn - EASE_EPSILON && finishedIn <= b.maxIn + EASE_EPSILON;
     })
     .map((b) => b.wearer);

@@ -20,7 +20,7 @@ export interface YarnWeightCategory {
   /** Recommended needle size range in mm (Jumbo: 12.75 mm and larger, so no maximum). */
   readonly needleMm: { readonly min: number; readonly max: number | null };
   /** True for Lace: the standard says its range is hard to determine, "guidelines only". */
-  readonly guidelinesOnly: boolean;
+  readonly isGuidelinesOnly: boolean;
 }
 
 /**
@@ -29,14 +29,14 @@ export interface YarnWeightCategory {
  * gaps between whole-number ranges (e.g. 11–12, 15–16).
  */
 export const YARN_WEIGHTS: readonly YarnWeightCategory[] = [
-  { number: 0, name: 'Lace', minStitchesPer4In: 33, maxStitchesPer4In: 40, needleMm: { min: 1.5, max: 2.25 }, guidelinesOnly: true },
-  { number: 1, name: 'Super Fine', minStitchesPer4In: 27, maxStitchesPer4In: 32, needleMm: { min: 2.25, max: 3.25 }, guidelinesOnly: false },
-  { number: 2, name: 'Fine', minStitchesPer4In: 23, maxStitchesPer4In: 26, needleMm: { min: 3.25, max: 3.75 }, guidelinesOnly: false },
-  { number: 3, name: 'Light', minStitchesPer4In: 21, maxStitchesPer4In: 24, needleMm: { min: 3.75, max: 4.5 }, guidelinesOnly: false },
-  { number: 4, name: 'Medium', minStitchesPer4In: 16, maxStitchesPer4In: 20, needleMm: { min: 4.5, max: 5.5 }, guidelinesOnly: false },
-  { number: 5, name: 'Bulky', minStitchesPer4In: 12, maxStitchesPer4In: 15, needleMm: { min: 5.5, max: 8 }, guidelinesOnly: false },
-  { number: 6, name: 'Super Bulky', minStitchesPer4In: 7, maxStitchesPer4In: 11, needleMm: { min: 8, max: 12.75 }, guidelinesOnly: false },
-  { number: 7, name: 'Jumbo', minStitchesPer4In: 0, maxStitchesPer4In: 6, needleMm: { min: 12.75, max: null }, guidelinesOnly: false },
+  { number: 0, name: 'Lace', minStitchesPer4In: 33, maxStitchesPer4In: 40, needleMm: { min: 1.5, max: 2.25 }, isGuidelinesOnly: true },
+  { number: 1, name: 'Super Fine', minStitchesPer4In: 27, maxStitchesPer4In: 32, needleMm: { min: 2.25, max: 3.25 }, isGuidelinesOnly: false },
+  { number: 2, name: 'Fine', minStitchesPer4In: 23, maxStitchesPer4In: 26, needleMm: { min: 3.25, max: 3.75 }, isGuidelinesOnly: false },
+  { number: 3, name: 'Light', minStitchesPer4In: 21, maxStitchesPer4In: 24, needleMm: { min: 3.75, max: 4.5 }, isGuidelinesOnly: false },
+  { number: 4, name: 'Medium', minStitchesPer4In: 16, maxStitchesPer4In: 20, needleMm: { min: 4.5, max: 5.5 }, isGuidelinesOnly: false },
+  { number: 5, name: 'Bulky', minStitchesPer4In: 12, maxStitchesPer4In: 15, needleMm: { min: 5.5, max: 8 }, isGuidelinesOnly: false },
+  { number: 6, name: 'Super Bulky', minStitchesPer4In: 7, maxStitchesPer4In: 11, needleMm: { min: 8, max: 12.75 }, isGuidelinesOnly: false },
+  { number: 7, name: 'Jumbo', minStitchesPer4In: 0, maxStitchesPer4In: 6, needleMm: { min: 12.75, max: null }, isGuidelinesOnly: false },
 ];
 
 /** A category the gauge falls in, with how far it is from the middle of the range. */
@@ -60,7 +60,7 @@ export interface YarnWeightNeighbour {
  *   when the gauge is outside all ranges.
  * - `neighbours`: when there is no match, the nearest category on each side
  *   (one for a gauge finer than Lace), nearest first; empty otherwise.
- * - `guidelinesOnly`: the best match (or nearest neighbour) is Lace, whose
+ * - `isGuidelinesOnly`: the best match (or nearest neighbour) is Lace, whose
  *   range the standard gives as guidelines only.
  * - `message`: one sentence for the summary.
  */
@@ -68,8 +68,8 @@ export interface YarnWeightClassification {
   readonly stitchesPer4In: number;
   readonly matches: readonly YarnWeightMatch[];
   readonly neighbours: readonly YarnWeightNeighbour[];
-  readonly outsideAllRanges: boolean;
-  readonly guidelinesOnly: boolean;
+  readonly isOutsideAllRanges: boolean;
+  readonly isGuidelinesOnly: boolean;
   readonly message: string;
 }
 
@@ -79,7 +79,7 @@ function middle(c: YarnWeightCategory): number {
 
 function label(c: YarnWeightCategory): string {
   const range = c.number === 7 ? `${c.maxStitchesPer4In} and fewer` : `${c.minStitchesPer4In}–${c.maxStitchesPer4In}`;
-  return `${c.number} ${c.name} (${range} sts per 4 in${c.guidelinesOnly ? ', guidelines only' : ''})`;
+  return `${c.number} ${c.name} (${range} sts per 4 in${c.isGuidelinesOnly ? ', guidelines only' : ''})`;
 }
 
 function formatCount(n: number): string {
@@ -106,8 +106,8 @@ export function classifyStitchesPer4In(stitchesPer4In: number): YarnWeightClassi
       stitchesPer4In: g,
       matches,
       neighbours: [],
-      outsideAllRanges: false,
-      guidelinesOnly: best.category.guidelinesOnly,
+      isOutsideAllRanges: false,
+      isGuidelinesOnly: best.category.isGuidelinesOnly,
       message: `${shown} sts per 4 in is ${label(best.category)}${also}.`,
     };
   }
@@ -126,8 +126,8 @@ export function classifyStitchesPer4In(stitchesPer4In: number): YarnWeightClassi
     stitchesPer4In: g,
     matches: [],
     neighbours: sides,
-    outsideAllRanges: true,
-    guidelinesOnly: sides[0].category.guidelinesOnly,
+    isOutsideAllRanges: true,
+    isGuidelinesOnly: sides[0].category.isGuidelinesOnly,
     message: `${shown} sts per 4 in is outside every yarn weight range: ${where}.`,
   };
 }

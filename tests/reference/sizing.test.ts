@@ -49,7 +49,7 @@ describe('hats are usually worn 5-10 % smaller than the head (references.md Sizi
     [21.9, false],
     [22, false],
   ])('an adult hat of %s in: within the negative-ease guidance = %s', (inches, within) => {
-    expect(compareToBody({ value: inches, unit: 'in' }, 'hat', 'adult')?.withinHatGuidance).toBe(within);
+    expect(compareToBody({ value: inches, unit: 'in' }, 'hat', 'adult')?.isWithinHatGuidance).toBe(within);
   });
 
   it('an adult hat 5 % smaller than a 22 in head has -5 % ease at the middle of the range', () => {
@@ -97,7 +97,7 @@ describe('finished circumference from counts and gauge (references.md Standards:
     expect(size.width.in).toBeCloseTo(112 / 5.5, 9);
     expect(size.width.cm).toBeCloseTo(convert(112 / 5.5).from('in').to('cm'), 4);
     expect(size.length.in).toBeCloseTo(8, 9);
-    expect(compareToBody(size.width, 'hat', 'adult')?.withinHatGuidance).toBe(true);
+    expect(compareToBody(size.width, 'hat', 'adult')?.isWithinHatGuidance).toBe(true);
   });
 
   it('48 front sts at 28 sts per 10 cm is a 17.1 cm (6.75 in) mitt: a woman\'s hand (6-7.5 in)', () => {

@@ -39,9 +39,9 @@ describe('Craft Yarn Council Standard Yarn Weight System (references.md, Standar
   it('0 Lace is marked "guidelines only" (range hard to determine)', () => {
     const lace = classifyStitchesPer4In(36);
     expect(lace.matches[0].category.name).toBe('Lace');
-    expect(lace.guidelinesOnly).toBe(true);
+    expect(lace.isGuidelinesOnly).toBe(true);
     expect(lace.message).toContain('guidelines only');
-    expect(classifyStitchesPer4In(18).guidelinesOnly).toBe(false);
+    expect(classifyStitchesPer4In(18).isGuidelinesOnly).toBe(false);
   });
 
   it('23-24 sts lie in both 2 Fine (23-26) and 3 Light (21-24): both returned, closest middle first', () => {
@@ -53,7 +53,7 @@ describe('Craft Yarn Council Standard Yarn Weight System (references.md, Standar
 
   it('a gauge between whole-number ranges is outside all of them, with both neighbours', () => {
     const c = classifyStitchesPer4In(15.5);
-    expect(c.outsideAllRanges).toBe(true);
+    expect(c.isOutsideAllRanges).toBe(true);
     expect(c.matches).toEqual([]);
     expect(c.neighbours.map((n) => n.category.name).sort()).toEqual(['Bulky', 'Medium']);
     expect(c.message).toMatch(/outside every yarn weight range/);

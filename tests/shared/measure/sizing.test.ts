@@ -45,7 +45,7 @@ describe('comparison with the body', () => {
     const c = compareToBody({ value: 7, unit: 'in' }, 'hand', 'woman');
     expect(c?.ease.atMin.in).toBeCloseTo(1, 9);
     expect(c?.ease.atMax.in).toBeCloseTo(-0.5, 9);
-    expect(c?.withinHatGuidance).toBeNull();
+    expect(c?.isWithinHatGuidance).toBeNull();
     expect(c?.message).toBe('7 in finished against a woman hand circumference around the knuckles, without the thumb of 6–7.5 in: +0.3 in of ease at the middle (+3.7 %), very close.');
   });
 

@@ -13,7 +13,7 @@ describe('yarn weight classification', () => {
         for (let i = 1; i < c.matches.length; i++) {
           expect(c.matches[i - 1].distanceFromMiddle).toBeLessThanOrEqual(c.matches[i].distanceFromMiddle);
         }
-        expect(c.outsideAllRanges).toBe(holding.length === 0);
+        expect(c.isOutsideAllRanges).toBe(holding.length === 0);
         expect(c.neighbours.length > 0).toBe(holding.length === 0);
       }),
     );
