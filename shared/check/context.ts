@@ -1,0 +1,91 @@
+/**
+ * What every part of the checker shares while building one size: the
+ * resolved header, the size, graded-number resolution and a diagnostics sink
+ * that suppresses repeats (one report per place and code per size).
+ */
+import type { Diagnostic, Span } from '../types';
+import type { Graded, NameRef } from '../notation';
+import { makeDiagnostic, closestName, type Facts } from '../diagnostics';
+import type { ResolvedHeader } from './header';
+
+/** Fixed bounds that keep any input finite. */
+export const LIMITS = {
+  /** Stitches worked per size, over all rounds. */
+  stitchesPerSize: 2_000_000,
+  /** Highest round number. */
+  rounds: 100_000,
+  /** Operation steps per size (guards repeats of zero-stitch operations). */
+  steps: 8_000_000,
+  /** Diagnostics per code per size before LW902. */
+  perCode: 50,
+} as const;
+
+/** Per-compile sink: dedupes by code+place (+size), caps per code. */
+export class Reporter {
+  readonly list: Diagnostic[] = [];
+  private seen = new Set<string>();
+  private counts = new Map<string, number>();
+  private dropped = new Map<string, { count: number; span: Span }>();
+
+  /** Reports once per (code, place, size, key); returns false when suppressed. */
+  report(code: string, span: Span, facts: Facts, size?: string, key = '', related?: { span: Span; message: string }[]): boolean {
+    const id = `${code}@${span.from}-${span.to}/${size ?? ''}/${key}`;
+    if (this.seen.has(id)) return false;
+    this.seen.add(id);
+    const n = (this.counts.get(code) ?? 0) + 1;
+    this.counts.set(code, n);
+    if (n > LIMITS.perCode) {
+      const d = this.dropped.get(code);
+      if (d) d.count++; else this.dropped.set(code, { count: 1, span });
+      return false;
+    }
+    this.list.push(makeDiagnostic(code, span, { ...facts, ...(size !== undefined ? { size } : {}) }, { size, related }));
+    return true;
+  }
+
+  /** Appends LW902 notes for capped codes and returns everything. */
+  finish(): Diagnostic[] {
+    for (const [code, d] of this.dropped) this.list.push(makeDiagnostic('LW902', d.span, { count: d.count, code }));
+    return this.list;
+  }
+}
+
+/** The state shared while building one size. */
+export class SizeContext {
+  constructor(
+    readonly head: ResolvedHeader,
+    readonly size: string,
+    readonly sizeIndex: number,
+    readonly reporter: Reporter,
+  ) {}
+
+  /** The size name to put on diagnostics (absent for the single implicit size). */
+  get sizeLabel(): string | undefined {
+    return this.head.header.sizes.length ? this.size : undefined;
+  }
+
+  /** Resolves a graded number for this size (LW201 when the list length is wrong). */
+  graded(g: Graded): number {
+    const n = this.head.sizes.length;
+    if (g.values.length === 1) return g.values[0];
+    if (g.values.length !== n) {
+      this.reporter.report('LW201', g.span, { count: g.values.length, sizes: n, sizeNames: this.head.sizes.join(' ') });
+      return g.values[Math.min(this.sizeIndex, g.values.length - 1)];
+    }
+    return g.values[this.sizeIndex];
+  }
+
+  /** Resolves a yarn name to its index (LW202 and the default yarn when unknown). */
+  yarn(ref: NameRef | null, fallback: number): number {
+    if (!ref) return fallback;
+    const i = this.head.yarnIndex.get(ref.name);
+    if (i !== undefined) return i;
+    this.reporter.report('LW202', ref.span, { name: ref.name, suggest: closestName(ref.name, this.head.yarnIndex.keys()) ?? '' });
+    return fallback;
+  }
+
+  /** Reports a size-specific finding. */
+  report(code: string, span: Span, facts: Facts, key = '', related?: { span: Span; message: string }[]): boolean {
+    return this.reporter.report(code, span, facts, this.sizeLabel, key, related);
+  }
+}

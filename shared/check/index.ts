@@ -1,0 +1,131 @@
+/**
+ * The checker: AST in, per-size model and diagnostics out. For each size it
+ * plans the rounds (plan.ts), works them on the stitch machine
+ * (machine.ts, ops.ts, round.ts), measures floats (floats.ts) and checks
+ * backing stitches (backing.ts). See README.md for the model's layout.
+ */
+import type { Diagnostic, PatternHeader, RoundSummary, Span } from '../types';
+import { STITCHES, type PatternAst, type StitchInfo } from '../notation';
+import { sortDiagnostics } from '../diagnostics';
+import { Reporter, SizeContext } from './context';
+import { resolveHeader } from './header';
+import { prepareCharts } from './charts';
+import { SourceTable } from './sources';
+import { Machine, type ColumnInfo } from './machine';
+import { planRounds } from './plan';
+import { workRounds, type RoundRecord } from './round';
+import { checkBackingClosed, formatRounds } from './backing';
+import type { StitchStore } from './store';
+
+export { FLAG, StitchStore } from './store';
+export { LIMITS } from './context';
+export { ONE_SIZE, DEFAULT_YARN } from './header';
+export { formatRounds } from './backing';
+export type { RoundRecord } from './round';
+export type { MarkerPos, SegmentRange, ColumnInfo } from './machine';
+export type { FloatRun } from './floats';
+
+/** Stitch-level data of one size, for renderers. Layout documented in README.md. */
+export interface StitchLevel {
+  /** Yarn names by yarn index. */
+  yarns: string[];
+  /** The operation table: `store.op[i]` indexes it. */
+  ops: readonly StitchInfo[];
+  /** Spans by source index: `store.src[i]` indexes it. */
+  sources: Span[];
+  /** Every stitch: the cast-on first ([0, castOn)), then each round at its record's offset. */
+  store: Pick<StitchStore, 'op' | 'yarn' | 'flags' | 'src' | 'col' | 'length'>;
+  /** One record per worked round, aligned with SizeModel.rounds. */
+  rounds: RoundRecord[];
+  /** Every backing column set up (store.col indexes it). */
+  columns: ColumnInfo[];
+}
+
+/** One size of the pattern, worked. */
+export interface SizeModel {
+  name: string;
+  castOn: number;
+  rounds: RoundSummary[];
+  stitches: StitchLevel;
+}
+
+/** What the checker returns. */
+export interface CheckOutput {
+  header: PatternHeader;
+  diagnostics: Diagnostic[];
+  sizes: SizeModel[];
+}
+
+const origin: Span = { from: 0, to: 0, line: 1, column: 1, endLine: 1, endColumn: 1 };
+
+/** Checks a parsed pattern; `only` restricts the work to one size (must exist). Never throws on user input. */
+export function checkPattern(ast: PatternAst, only?: string): CheckOutput {
+  const rep = new Reporter();
+  const early: Diagnostic[] = [];
+  const head = resolveHeader(ast.header, early, origin);
+  for (const d of early) rep.list.push(d);
+  const flat = head.header.construction === 'flat';
+  const sources = new SourceTable();
+  sources.add(ast.castOn?.span ?? origin); // index 0: the cast-on (also used for stitches left unworked)
+  const charts = prepareCharts(ast.charts, head, rep, sources);
+  if (!ast.castOn) rep.report('LW207', origin, {});
+  if (head.yarns.length > 1 && !head.gauge) rep.report('LW503', ast.header.yarns[0]?.span ?? origin, {});
+  if (only !== undefined && !head.sizes.includes(only)) {
+    rep.report('LW208', ast.header.sizesSpan ?? origin, { name: only, known: head.sizes.join(' ') });
+    return { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes: [] };
+  }
+  const sizes: SizeModel[] = [];
+  head.sizes.forEach((size, sizeIndex) => {
+    if (only !== undefined && size !== only) return;
+    const ctx = new SizeContext(head, size, sizeIndex, rep);
+    const m = new Machine(ctx, sources, charts);
+    const castOnCount = ast.castOn ? ctx.graded(ast.castOn.count) : 0;
+    const castOnYarn = ctx.yarn(ast.castOn?.yarn ?? null, 0);
+    const planned = planRounds(ctx, ast, flat);
+    let records: RoundRecord[] = [];
+    if (castOnCount < 0) ctx.report('LW103', ast.castOn!.count.span, { what: 'a cast-on', need: '0 or more stitches', value: castOnCount });
+    if (planned) records = workRounds(m, ast, planned.rounds, planned.ranges, { count: Math.max(0, castOnCount), yarn: castOnYarn, src: 0 }, flat);
+    checkBackingClosed(m, records[records.length - 1]);
+    reportFloats(ctx, records, m.word, m.store, sources.spans);
+    m.store.trim();
+    sizes.push({
+      name: size,
+      castOn: Math.max(0, castOnCount),
+      rounds: records.map((r) => summarize(r, head.yarns)),
+      stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns },
+    });
+  });
+  return { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };
+}
+
+function summarize(r: RoundRecord, yarns: string[]): RoundSummary {
+  let longest: RoundSummary['longestFloat'] = null;
+  for (const f of r.floats) if (!longest || f.stitches > longest.stitches) longest = { yarn: yarns[f.yarn], stitches: f.stitches };
+  return { number: r.number, side: r.side, front: r.front, backing: r.backing, total: r.front + r.backing, longestFloat: longest, span: r.span };
+}
+
+/** LW501: floats past the limit, grouped by yarn, length and line so a range of rounds is one warning. */
+function reportFloats(ctx: SizeContext, records: RoundRecord[], word: string, store: StitchStore, spans: Span[]): void {
+  const limit = ctx.head.floatLimitStitches;
+  const gauge = ctx.head.gauge;
+  if (limit === null || !gauge) return;
+  const groups = new Map<string, { rounds: number[]; span: Span; yarn: number; stitches: number }>();
+  for (const r of records) {
+    for (const f of r.floats) {
+      if (f.stitches <= limit) continue;
+      const src = store.src[f.toStitch];
+      const endSpan = src > 0 && spans[src] ? spans[src] : r.span;
+      const key = `${f.yarn}|${f.stitches}|${endSpan.from}`;
+      const g = groups.get(key);
+      if (g) g.rounds.push(r.number); else groups.set(key, { rounds: [r.number], span: endSpan, yarn: f.yarn, stitches: f.stitches });
+    }
+  }
+  const lim = ctx.head.header.floatLimit;
+  for (const g of groups.values()) {
+    const inches = g.stitches / gauge.stitchesPerInch;
+    ctx.report('LW501', g.span, {
+      rounds: formatRounds(word, g.rounds), yarn: ctx.head.yarns[g.yarn], stitches: g.stitches,
+      inches: inches.toFixed(2), cm: (inches * 2.54).toFixed(1), limit: `${lim.value} ${lim.unit}`, every: Math.max(1, limit),
+    }, `${g.yarn}|${g.stitches}|${g.rounds[0]}`);
+  }
+}

@@ -1,0 +1,333 @@
+/**
+ * The stitch machine, operations: interprets a line's operation list on the
+ * machine (machine.ts) over the current scope [pos, end): stitch runs,
+ * repeats (times, to end, to last n, to marker, nested), chart rows,
+ * markers, catches and hand-placed backing stitches (raise, carry, close).
+ */
+import { OP, STITCHES, type Op, type StitchInfo, type ToSpec } from '../notation';
+import type { Span } from '../types';
+import type { Machine } from './machine';
+import { FLAG } from './store';
+import type { ChartRow } from './charts';
+
+import type { Facts } from '../diagnostics';
+
+const sizeFacts = (m: Machine): Facts => (m.scopeName ? { word: m.word, round: m.roundNo, segment: m.scopeName } : { word: m.word, round: m.roundNo });
+
+/** Works one stitch operation once: takes what it consumes, puts what it produces. */
+export function workStitch(m: Machine, info: StitchInfo, yarn: number, src: number, flags: number): void {
+  const c = info.consumes;
+  let got = 0;
+  for (let j = 0; j < c; j++) {
+    if (m.takeFront(src, info.name) < 0) break;
+    got++;
+  }
+  m.worked += c;
+  if (got < c) {
+    m.missing += c - got;
+    if (c > 1 && got > 0) {
+      m.ctx.report('LW303', m.sources.spans[src], { ...sizeFacts(m), stitch: info.name, needs: c, left: got });
+      m.problem = true;
+    }
+    if (got === 0) return;
+  }
+  for (let j = 0; j < info.produces; j++) m.putFront(info.code, yarn, src, flags);
+}
+
+/** Where a "to ..." run stops: the input index, or -1 after a diagnostic. */
+function target(m: Machine, to: ToSpec, span: Span): number {
+  if (to.kind === 'end') return m.end;
+  if (to.kind === 'last') return m.end; // the caller keeps n back
+  for (let k = m.mi; k < m.markersIn.length; k++) {
+    const mk = m.markersIn[k];
+    if (mk.at > m.end) break;
+    if (mk.at >= m.pos && (!to.name || mk.name === to.name.name)) return mk.at;
+  }
+  if (!to.name) {
+    // In a segment, the next marker is the segment's end.
+    if (m.scopeName !== null || m.end < m.inLen) return m.end;
+    m.ctx.report('LW307', span, { ...sizeFacts(m), detail: 'there is no marker ahead before the end of the round' });
+    return -1;
+  }
+  const known = [...new Set(m.markersIn.map((x) => x.name))].join(', ');
+  m.ctx.report('LW205', to.name.span, { round: m.roundNo, name: to.name.name, known });
+  return -1;
+}
+
+/** How many stitches remain for a "to ..." run, or -1 after a diagnostic. */
+function available(m: Machine, to: ToSpec, span: Span): number {
+  const t = target(m, to, span);
+  if (t < 0) return -1;
+  let n = m.countable(m.pos, t);
+  if (to.kind === 'last') {
+    const keep = m.ctx.graded(to.n);
+    if (keep > n) {
+      m.ctx.report('LW302', span, { ...sizeFacts(m), repeat: 1, available: n, over: n - keep });
+      m.problem = true;
+      return -1;
+    }
+    n -= keep;
+  }
+  return n;
+}
+
+/** Stitches one pass of `ops` takes, or null when it depends on the needle ("to end" inside). */
+export function consumption(m: Machine, ops: readonly Op[]): number | null {
+  let total = 0;
+  for (const op of ops) {
+    switch (op.type) {
+      case 'stitch':
+        if (op.to) return null;
+        total += op.stitch.consumes * (op.count ? m.ctx.graded(op.count) : 1);
+        break;
+      case 'group': {
+        const inner = consumption(m, op.ops);
+        if (inner === null || (op.repeat.kind !== 'times' && op.repeat.kind !== 'once')) return null;
+        total += inner * (op.repeat.kind === 'times' ? m.ctx.graded(op.repeat.n) : 1);
+        break;
+      }
+      case 'chart': {
+        if (!op.once) return null;
+        const row = chartRow(m, op, false);
+        total += row ? row.consumes : 0;
+        break;
+      }
+      case 'carry': total += op.count ? m.ctx.graded(op.count) : 1; break;
+      case 'close': total += 2; break;
+      case 'cable': total += op.held + op.worked; break;
+      default: break;
+    }
+  }
+  return total;
+}
+
+/** The chart row a chart operation works on this round (null after LW203). */
+function chartRow(m: Machine, op: Extract<Op, { type: 'chart' }>, report: boolean): ChartRow | null {
+  const chart = m.charts.get(op.chart.name);
+  if (!chart) {
+    if (report) m.ctx.reporter.report('LW203', op.chart.span, { name: op.chart.name, suggest: '' });
+    return null;
+  }
+  if (chart.rows.length === 0) return null;
+  const h = chart.rows.length;
+  const n = op.row ? m.ctx.graded(op.row) : ((m.roundNo - m.lineFirst) % h) + 1;
+  if (n < 1 || n > h) {
+    if (report) m.ctx.report('LW210', op.row?.span ?? op.span, { detail: `chart ${chart.name} has rows 1 to ${h}, not ${n}` });
+    return null;
+  }
+  return chart.rows[n - 1];
+}
+
+/** Works a chart row once: right to left on RS rows, left to right on WS rows. */
+function workChartRow(m: Machine, row: ChartRow, yarn: number): void {
+  const cells = row.cells;
+  const ws = m.side === 'WS';
+  for (let k = 0; k < cells.length; k++) {
+    const cell = cells[ws ? k : cells.length - 1 - k];
+    if (cell.none) continue;
+    workStitch(m, ws ? cell.ws : cell.rs, cell.yarn >= 0 ? cell.yarn : yarn, row.src, FLAG.CHART);
+  }
+}
+
+/** Works an operation list over the current scope. */
+export function execOps(m: Machine, ops: readonly Op[], yarn: number): void {
+  for (const op of ops) {
+    if (m.aborted) return;
+    if (m.pos >= m.nextEvent) m.passEvents();
+    execOp(m, op, yarn);
+  }
+}
+
+function execOp(m: Machine, op: Op, yarn: number): void {
+  const src = m.sources.of(op);
+  switch (op.type) {
+    case 'stitch': {
+      const y = m.ctx.yarn(op.yarn, yarn);
+      const info = op.stitch;
+      let reps = op.count ? m.ctx.graded(op.count) : 1;
+      if (op.to) {
+        if (info.consumes === 0) {
+          m.ctx.report('LW306', op.span, {});
+          m.problem = true;
+          return;
+        }
+        const n = available(m, op.to, op.span);
+        if (n < 0) { m.problem = true; return; }
+        reps = Math.floor(n / info.consumes);
+        const over = n % info.consumes;
+        if (over) {
+          m.ctx.report('LW302', op.span, { ...sizeFacts(m), repeat: info.consumes, available: n, over });
+          m.problem = true;
+        }
+      }
+      if (reps < 0) return;
+      if (!m.room(reps * info.produces, op.span)) return;
+      if (!m.step(op.span)) return;
+      for (let r = 0; r < reps; r++) workStitch(m, info, y, src, 0);
+      return;
+    }
+    case 'group': {
+      const y = m.ctx.yarn(op.yarn, yarn);
+      let reps = 1;
+      if (op.repeat.kind === 'times') reps = m.ctx.graded(op.repeat.n);
+      else if (op.repeat.kind !== 'once') {
+        const per = consumption(m, op.ops);
+        if (per === null) reps = 1;
+        else if (per === 0) { m.ctx.report('LW306', op.span, {}); m.problem = true; return; }
+        else {
+          const n = available(m, op.repeat, op.span);
+          if (n < 0) { m.problem = true; return; }
+          reps = Math.floor(n / per);
+          const over = n % per;
+          if (over) {
+            m.ctx.report('LW302', op.span, { ...sizeFacts(m), repeat: per, available: n, over });
+            m.problem = true;
+          }
+        }
+      }
+      for (let r = 0; r < reps; r++) {
+        if (!m.step(op.span)) return;
+        execOps(m, op.ops, y);
+      }
+      return;
+    }
+    case 'chart': {
+      const row = chartRow(m, op, true);
+      if (!row || row.consumes === 0) return;
+      const n = m.countable(m.pos, m.end);
+      const chart = m.charts.get(op.chart.name)!;
+      const rowNo = chart.rows.indexOf(row) + 1;
+      if (n < row.consumes) {
+        m.ctx.report('LW304', op.span, { ...sizeFacts(m), chart: chart.name, row: rowNo, width: row.consumes, available: n });
+        m.problem = true;
+        workChartRow(m, row, yarn);
+        return;
+      }
+      let reps = 1;
+      if (!op.once) {
+        reps = Math.floor(n / row.consumes);
+        const over = n % row.consumes;
+        if (over) {
+          m.ctx.report('LW302', op.span, { ...sizeFacts(m), repeat: row.consumes, available: n, over });
+          m.problem = true;
+        }
+      }
+      if (!m.room(reps * row.produces, op.span)) return;
+      for (let r = 0; r < reps; r++) workChartRow(m, row, yarn);
+      return;
+    }
+    case 'mark': {
+      if (m.markersOut.some((x) => x.name === op.name.name) || m.markersIn.slice(m.mi).some((x) => x.name === op.name.name)) {
+        m.ctx.report('LW206', op.name.span, { what: 'marker', name: op.name.name });
+        return;
+      }
+      m.markersOut.push({ name: op.name.name, at: m.store.length - m.outStart });
+      return;
+    }
+    case 'unmark': {
+      const here = m.store.length - m.outStart;
+      const k = m.markersOut.findIndex((x) => x.name === op.name.name && x.at === here);
+      if (k >= 0) { m.markersOut.splice(k, 1); return; }
+      const j = m.markersIn.findIndex((x, idx) => idx >= m.mi && x.name === op.name.name && x.at === m.pos);
+      if (j >= 0) { m.markersIn.splice(j, 1); m.passEvents(); return; }
+      const known = [...new Set([...m.markersIn.map((x) => x.name), ...m.markersOut.map((x) => x.name)])].join(', ');
+      if (m.markersIn.some((x) => x.name === op.name.name)) {
+        m.ctx.report('LW307', op.span, { ...sizeFacts(m), detail: `marker ${op.name.name} is not at this point of the ${m.word}` });
+      } else m.ctx.report('LW205', op.name.span, { round: m.roundNo, name: op.name.name, known });
+      return;
+    }
+    case 'catch':
+      m.catchYarn.push(m.ctx.yarn(op.yarn, yarn));
+      m.catchAt.push(m.front);
+      return;
+    case 'raise':
+      if (!m.room(1, op.span)) return;
+      m.raise(m.ctx.yarn(op.yarn, yarn), src, 0);
+      return;
+    case 'carry': {
+      const n = op.count ? m.ctx.graded(op.count) : 1;
+      for (let r = 0; r < n; r++) {
+        if (!m.step(op.span)) return;
+        if (m.pos >= m.end) { m.worked++; m.missing++; continue; }
+        if (m.pos >= m.nextEvent) m.passEvents();
+        const f = m.inFlags[m.pos];
+        if (f & FLAG.BACKING) {
+          m.worked++;
+          m.putBacking(OP.carry, m.inYarn[m.pos], src, f, m.inCol[m.pos]);
+          m.pos++;
+        } else {
+          m.ctx.report('LW405', op.span, { ...sizeFacts(m), detail: 'carry meets a front stitch, not a backing stitch; it is knitted' });
+          workStitch(m, STITCHES[OP.k], yarn, src, 0);
+        }
+      }
+      return;
+    }
+    case 'close': closeBacking(m, op.how, yarn, src, op.span); return;
+    case 'cable': {
+      const y = m.ctx.yarn(op.yarn, yarn);
+      const code = op.dir === 'left' ? OP.cableLeft : OP.cableRight;
+      const n = op.held + op.worked;
+      if (!m.room(n, op.span)) return;
+      let got = 0;
+      for (let j = 0; j < n; j++) if (m.takeFront(src, 'the cable') >= 0) got++;
+      m.worked += n;
+      if (got < n) {
+        m.missing += n - got;
+        m.ctx.report('LW303', op.span, { ...sizeFacts(m), stitch: `cable ${op.held} over ${op.worked}`, needs: n, left: got });
+        m.problem = true;
+      }
+      for (let j = 0; j < got; j++) m.putFront(code, y, src, 0);
+      return;
+    }
+  }
+}
+
+/** close / close ssk: a backing stitch and its front neighbour worked together into one front stitch. */
+function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: number, span: Span): void {
+  if (m.pos >= m.nextEvent) m.passEvents();
+  const a = m.pos, b = m.pos + 1;
+  m.worked += 2;
+  if (a >= m.end) {
+    m.missing += 2;
+    m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no stitch left to close' });
+    m.problem = true;
+    return;
+  }
+  const fa = m.inFlags[a];
+  const fb = b < m.end ? m.inFlags[b] : -1;
+  const backA = (fa & FLAG.BACKING) !== 0, backB = fb >= 0 && (fb & FLAG.BACKING) !== 0;
+  if (fb < 0) {
+    m.missing += 1;
+    m.problem = true;
+    if (backA) {
+      m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'the backing stitch is the last stitch here, with no front neighbour to close with' });
+      m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
+    } else {
+      m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no backing stitch here to close' });
+      m.putFront(OP.k, m.inYarn[a], src, 0);
+    }
+    m.pos = a + 1;
+    return;
+  }
+  m.pos = b + 1;
+  if (backA && backB) {
+    m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'two backing stitches side by side: close needs a front stitch as neighbour' });
+    m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
+    m.putBacking(OP.carry, m.inYarn[b], src, fb, m.inCol[b]);
+    m.problem = true;
+    return;
+  }
+  const key = `${m.side}:${m.front}`;
+  if (!backA && !backB) {
+    const before = m.closed.get(key);
+    if (before) {
+      m.ctx.report('LW402', span, { ...sizeFacts(m), closedIn: before.round }, '', [{ span: before.span, message: `closed here in ${m.word} ${before.round}` }]);
+    } else {
+      m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no backing stitch here to close; the two stitches are worked together as a decrease' });
+    }
+    m.putFront(how === 'ssk' ? OP.closeSsk : OP.closeK2tog, yarn, src, 0);
+    return;
+  }
+  m.closed.set(key, { round: m.roundNo, span });
+  m.putFront(how === 'ssk' ? OP.closeSsk : OP.closeK2tog, yarn, src, 0);
+}

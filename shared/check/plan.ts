@@ -1,0 +1,98 @@
+/**
+ * Expansion per size, step 1: which line gives each round its instructions.
+ *
+ * Rounds are worked from 1 to the highest round any line names. For each
+ * round, the last whole-round line that covers it wins; lines with
+ * "at SEGMENT" are collected per segment (again the last one wins). A round
+ * with both kinds is LW211; a round with neither is LW209. Ladder lines are
+ * attached to the rounds they set up (first), work and close (last).
+ */
+import type { LadderLine, PatternAst, RoundLine } from '../notation';
+import { LIMITS, type SizeContext } from './context';
+
+/** What one round is made of. */
+export interface PlannedRound {
+  number: number;
+  side: 'RS' | 'WS';
+  /** The whole-round line, or null for a segment round (or a missing round). */
+  whole: RoundLine | null;
+  /** Segment lines by segment name (empty map for a whole round). */
+  segments: Map<string, RoundLine>;
+  /** Ladders active on this round and their phase. */
+  ladders: { ladder: LadderLine; phase: 'setup' | 'work' | 'close'; first: number }[];
+}
+
+/** A resolved range of a line for this size. */
+export interface LineRange { first: number; last: number; step: number }
+
+/** Resolves a line's range for the context's size (numbers below 1 are LW103). */
+export function lineRange(ctx: SizeContext, line: RoundLine): LineRange | null {
+  const first = ctx.graded(line.first);
+  const last = line.last ? ctx.graded(line.last) : first;
+  if (first < 1 || last < first) {
+    ctx.reporter.report('LW103', line.last?.span ?? line.first.span, { what: 'a round range', need: 'from 1 upwards, first before last', value: `${first}-${last}` });
+    return null;
+  }
+  return { first, last, step: line.every ?? 1 };
+}
+
+/**
+ * Builds the round plan for one size; returns null (after LW901) when the
+ * highest round number is past the bound.
+ */
+export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean): { rounds: PlannedRound[]; ranges: Map<RoundLine, LineRange> } | null {
+  const ranges = new Map<RoundLine, LineRange>();
+  let max = 0;
+  for (const line of ast.rounds) {
+    const r = lineRange(ctx, line);
+    if (!r) continue;
+    ranges.set(line, r);
+    if (r.last > max) max = r.last;
+  }
+  const wordOf = flat ? 'row' : 'round';
+  if (max > LIMITS.rounds) {
+    const worst = ast.rounds.find((l) => (ranges.get(l)?.last ?? 0) > LIMITS.rounds)!;
+    ctx.report('LW901', worst.span, { detail: `${wordOf} ${max} is past the limit of ${LIMITS.rounds} ${wordOf}s`, word: wordOf });
+    return null;
+  }
+  const whole = new Int32Array(max + 1).fill(-1);
+  const segs: Map<string, RoundLine>[] = Array.from({ length: max + 1 }, () => new Map());
+  for (const line of ast.rounds) {
+    const r = ranges.get(line);
+    if (!r) continue;
+    if ((line.word === 'row') !== flat) {
+      ctx.reporter.report('LW213', line.headSpan, { construction: flat ? 'flat' : 'in the round', word: line.word, expected: flat ? 'row/rows' : 'round/rounds' });
+    }
+    for (let n = r.first; n <= r.last; n += r.step) {
+      if (line.segment) segs[n].set(line.segment.name, line);
+      else whole[n] = line.index;
+    }
+  }
+  const rounds: PlannedRound[] = [];
+  for (let n = 1; n <= max; n++) {
+    const side = flat && n % 2 === 0 ? 'WS' : 'RS';
+    let w = whole[n] >= 0 ? ast.rounds[whole[n]] : null;
+    if (w && segs[n].size) {
+      const [segName, segLine] = [...segs[n]][0];
+      ctx.reporter.report('LW211', segLine.headSpan, { word: wordOf, round: n, segment: segName }, ctx.sizeLabel, String(n));
+      w = null;
+    }
+    if (!w && segs[n].size === 0) {
+      const near = ast.rounds.find((l) => (ranges.get(l)?.first ?? 0) > n) ?? ast.rounds[ast.rounds.length - 1];
+      ctx.report('LW209', near.headSpan, { word: wordOf, round: n, last: max }, String(n));
+    }
+    rounds.push({ number: n, side, whole: w, segments: w ? new Map() : segs[n], ladders: [] });
+  }
+  for (const ladder of ast.ladders) {
+    const first = ctx.graded(ladder.first);
+    const last = ctx.graded(ladder.last);
+    if (!(first >= 1 && last > first)) {
+      ctx.reporter.report('LW212', ladder.span, { first, last });
+      continue;
+    }
+    for (let n = first; n <= Math.min(last, max); n++) {
+      rounds[n - 1].ladders.push({ ladder, phase: n === first ? 'setup' : n === last ? 'close' : 'work', first });
+    }
+  }
+  return { rounds, ranges };
+}

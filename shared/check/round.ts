@@ -1,0 +1,185 @@
+/**
+ * The stitch machine, rounds: works every planned round of one size in
+ * order, from the cast-on onwards, and records each round (offset into the
+ * store, counts, markers, segments, floats). Flat work turns the needle
+ * between rows: a row's input is the previous row's output reversed.
+ */
+import { OP, type PatternAst, type RoundLine } from '../notation';
+import type { Span } from '../types';
+import { START_SEGMENT, type LadderRun, type Machine, type MarkerPos, type SegmentRange } from './machine';
+import { execOps } from './ops';
+import { measureFloats, type FloatRun } from './floats';
+import { FLAG } from './store';
+import type { PlannedRound, LineRange } from './plan';
+
+/** One worked round as the model keeps it. */
+export interface RoundRecord {
+  number: number;
+  side: 'RS' | 'WS';
+  /** First stitch of the round in the size's store; the round's stitches are [offset, offset + count). */
+  offset: number;
+  count: number;
+  front: number;
+  backing: number;
+  /** Stitches on the needle when the round began. */
+  start: number;
+  /** Stitches the round's operations asked for (equals `start` minus ladder-managed stitches when the round adds up). */
+  worked: number;
+  /** Markers after the round, in its working order (marker sits before stitch `at`). */
+  markers: MarkerPos[];
+  /** The segments the round was worked in, input positions in working order. */
+  segments: SegmentRange[];
+  /** The longest float per yarn that floats at all. */
+  floats: FloatRun[];
+  /** The line(s) that gave the instructions (source indexes), and the main span. */
+  lines: number[];
+  span: Span;
+  note: string | null;
+}
+
+/** Reverses marker positions for a needle of `len` stitches turned around. */
+function turnMarkers(markers: readonly MarkerPos[], len: number): MarkerPos[] {
+  return markers.map((m) => ({ name: m.name, at: len - m.at })).reverse();
+}
+
+/** Segments from markers (RS orientation), then put in working order. */
+function segmentsOf(rsMarkers: readonly MarkerPos[], len: number, ws: boolean): SegmentRange[] {
+  const segs: SegmentRange[] = [];
+  let from = 0, name = START_SEGMENT;
+  for (const m of rsMarkers) {
+    segs.push({ name, from, to: m.at });
+    from = m.at; name = m.name;
+  }
+  segs.push({ name, from, to: len });
+  if (!ws) return segs;
+  return segs.map((s) => ({ name: s.name, from: len - s.to, to: len - s.from })).reverse();
+}
+
+/** Works all rounds; returns their records (fewer than planned if the size hit a bound). */
+export function workRounds(
+  m: Machine, ast: PatternAst, plan: PlannedRound[], ranges: Map<RoundLine, LineRange>,
+  castOn: { count: number; yarn: number; src: number }, flat: boolean,
+): RoundRecord[] {
+  const records: RoundRecord[] = [];
+  const { ctx, store } = m;
+  // The cast-on is stored first, as the needle before round 1 (not a round).
+  m.room(castOn.count, m.sources.spans[castOn.src]);
+  if (m.aborted) return records;
+  for (let i = 0; i < castOn.count; i++) {
+    const k = store.length++;
+    store.op[k] = OP.co; store.yarn[k] = castOn.yarn; store.flags[k] = 0; store.src[k] = castOn.src; store.col[k] = -1;
+  }
+  let prevOff = 0, prevLen = castOn.count, prevMarkers: MarkerPos[] = [], prevSide: 'RS' | 'WS' = flat ? 'WS' : 'RS';
+  const yarnCount = ctx.head.yarns.length;
+  const defaultYarn = castOn.yarn;
+
+  for (const p of plan) {
+    if (m.aborted) break;
+    m.logical += prevLen;
+    const ws = p.side === 'WS';
+    let flags = store.flags.subarray(prevOff, prevOff + prevLen);
+    let yarn = store.yarn.subarray(prevOff, prevOff + prevLen);
+    let col = store.col.subarray(prevOff, prevOff + prevLen);
+    let markers = prevMarkers;
+    if (flat) {
+      flags = flags.slice().reverse(); yarn = yarn.slice().reverse(); col = col.slice().reverse();
+      markers = turnMarkers(prevMarkers, prevLen);
+    }
+    const rsMarkers = ws ? turnMarkers(markers, prevLen) : markers;
+    const segs = segmentsOf(rsMarkers, prevLen, ws);
+    m.load(flags, yarn, col, markers.map((x) => ({ ...x })), segs);
+    m.roundNo = p.number; m.side = p.side; m.word = flat ? 'row' : 'round';
+    m.ladders = p.ladders.map((l): LadderRun => ({
+      ladder: l.ladder, phase: l.phase, count: 0, src: m.sources.of(l.ladder), yarn: ctx.yarn(l.ladder.yarn, defaultYarn),
+      every: l.ladder.every ? Math.max(0, ctx.graded(l.ladder.every)) : 0,
+      columns: new Set(l.ladder.columns.map((c) => ctx.graded(c))),
+    }));
+    for (const l of m.ladders) {
+      if (l.ladder.segment && !segs.some((s) => s.name === l.ladder.segment!.name)) {
+        ctx.report('LW204', l.ladder.segment.span, { round: p.number, name: l.ladder.segment.name, known: segs.map((s) => s.name).join(', ') });
+      }
+    }
+    const lines: number[] = [];
+    let span: Span = p.whole?.span ?? [...p.segments.values()][0]?.span ?? ast.rounds[0]?.span ?? m.sources.spans[castOn.src];
+    let worked = 0;
+    const start = prevLen;
+    m.selectLadder();
+    if (p.whole || p.segments.size === 0) {
+      m.end = prevLen; m.scopeName = null; m.worked = 0; m.missing = 0; m.problem = false;
+      m.passEvents();
+      if (p.whole) {
+        workLine(m, p.whole, ranges, defaultYarn);
+        lines.push(m.sources.of(p.whole));
+      } else m.problem = true; // LW209 already says why
+      finishScope(m, m.countable(0, prevLen), span);
+      worked = m.worked;
+    } else {
+      const names = new Set(segs.map((s) => s.name));
+      for (const [name, line] of p.segments) {
+        if (!names.has(name)) ctx.report('LW204', line.segment!.span, { round: p.number, name, known: [...names].join(', ') });
+      }
+      for (let si = 0; si < segs.length && !m.aborted; si++) {
+        const seg = segs[si];
+        m.pos = seg.from; m.end = seg.to; m.scopeName = seg.name; m.worked = 0; m.missing = 0; m.problem = false;
+        m.enterSegment(si);
+        const line = p.segments.get(seg.name);
+        const onNeedle = m.countable(seg.from, seg.to);
+        if (line) {
+          workLine(m, line, ranges, defaultYarn);
+          lines.push(m.sources.of(line));
+        } else if (seg.to > seg.from) {
+          const first = [...p.segments.values()][0];
+          ctx.report('LW305', first.headSpan, { word: m.word, round: p.number, segment: seg.name, stitches: onNeedle }, `${p.number}:${seg.name}`);
+          m.problem = true;
+        }
+        finishScope(m, onNeedle, line?.span ?? span);
+        worked += m.worked;
+      }
+    }
+    m.end = prevLen;
+    m.pos = prevLen;
+    m.passEvents();
+    const offset = m.outStart;
+    const count = store.length - offset;
+    const floats = measureFloats(store, offset, count, yarnCount, m.catchYarn, m.catchAt, !flat);
+    if (lines.length) span = m.sources.spans[lines[0]];
+    const note = p.whole?.note ?? [...p.segments.values()].find((l) => l.note)?.note ?? null;
+    records.push({
+      number: p.number, side: p.side, offset, count, front: m.front, backing: m.backing, start, worked,
+      markers: m.markersOut, segments: segs, floats, lines, span, note,
+    });
+    prevOff = offset; prevLen = count; prevMarkers = m.markersOut; prevSide = p.side;
+  }
+  void prevSide;
+  return records;
+}
+
+/** Works one line over the current scope with its yarn. */
+function workLine(m: Machine, line: RoundLine, ranges: Map<RoundLine, LineRange>, defaultYarn: number): void {
+  m.lineFirst = ranges.get(line)?.first ?? 1;
+  m.lineSpan = line.span;
+  execOps(m, line.ops, m.ctx.yarn(line.yarn, defaultYarn));
+}
+
+/** Ends a scope: works trailing ladder stitches, checks the count (LW301), passes leftovers through. */
+function finishScope(m: Machine, onNeedle: number, span: Span): void {
+  while (m.pos < m.end && (m.inFlags[m.pos] & FLAG.MANAGED)) {
+    if (m.pos >= m.nextEvent) m.passEvents();
+    m.autoBacking(m.pos);
+    m.pos++;
+  }
+  if (m.pendingClose >= 0) m.unclosed();
+  const leftover = m.countable(m.pos, m.end);
+  if (!m.problem && !m.aborted && (leftover > 0 || m.missing > 0)) {
+    m.ctx.report('LW301', span, { word: m.word, round: m.roundNo, worked: m.worked, onNeedle, ...(m.scopeName ? { segment: m.scopeName } : {}) });
+  }
+  if (m.aborted) return;
+  m.store.reserve(m.end - m.pos);
+  while (m.pos < m.end) {
+    if (m.pos >= m.nextEvent) m.passEvents();
+    const i = m.pos++;
+    const f = m.inFlags[i];
+    if (f & FLAG.BACKING) m.putBacking(OP.carry, m.inYarn[i], 0, f | FLAG.UNWORKED, m.inCol[i]);
+    else m.putFront(OP.k, m.inYarn[i], 0, FLAG.UNWORKED);
+  }
+}

@@ -1,0 +1,120 @@
+/**
+ * The catalogue of diagnostic codes. Codes are stable and never reused;
+ * grammar/diagnostics.md documents each with a paragraph. A diagnostic is
+ * data first (code, span, facts) and prose second: {@link formatDiagnostic}
+ * is the single place where facts become a message and a hint.
+ *
+ * Prefix "LW"; hundreds group the stage: 1xx reading the text, 2xx names and
+ * header, 3xx stitch counts, 4xx backing stitches, 5xx floats and colour,
+ * 9xx limits.
+ */
+import type { Severity } from '../types';
+
+/** Facts a message is built from; each code documents the keys it uses. */
+export type Facts = Record<string, string | number>;
+
+export interface CodeInfo {
+  code: string;
+  title: string;
+  severity: Severity;
+  message: (f: Facts) => string;
+  hint?: (f: Facts) => string | undefined;
+}
+
+const s = (n: string | number, one: string, many = `${one}s`) => `${n} ${Number(n) === 1 ? one : many}`;
+const where = (f: Facts) => (f.segment ? ` in segment ${f.segment}` : '');
+
+const list: CodeInfo[] = [
+  { code: 'LW101', title: 'Unreadable characters', severity: 'error',
+    message: (f) => `cannot read ${f.text}`, hint: () => 'stitch words, numbers, names, "quoted text", #rrggbb colours and |chart rows| are what a source is made of' },
+  { code: 'LW102', title: 'Unexpected word', severity: 'error', message: (f) => String(f.detail),
+    hint: (f) => (f.hint ? String(f.hint) : undefined) },
+  { code: 'LW103', title: 'Not a usable number', severity: 'error',
+    message: (f) => `${f.what} must be ${f.need}, not ${f.value}` },
+  { code: 'LW104', title: 'Unknown stitch combination', severity: 'error',
+    message: (f) => `'${f.text}' is not a stitch the notation knows`, hint: (f) => (f.hint ? String(f.hint) : undefined) },
+  { code: 'LW201', title: 'Graded list does not match the sizes', severity: 'error',
+    message: (f) => `this graded number has ${s(f.count, 'value')} but the pattern has ${s(f.sizes, 'size')}`,
+    hint: (f) => `write one value per size (${f.sizeNames}), separated by '/'` },
+  { code: 'LW202', title: 'Unknown yarn', severity: 'error',
+    message: (f) => `there is no yarn called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : `declare it: yarn ${f.name} "label" #rrggbb`) },
+  { code: 'LW203', title: 'Unknown chart', severity: 'error',
+    message: (f) => `there is no chart called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : undefined) },
+  { code: 'LW204', title: 'Unknown segment', severity: 'error',
+    message: (f) => `round ${f.round} has no segment called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => (f.known ? `segments on the needle then: ${f.known}` : 'a segment starts at a marker placed with "mark NAME"') },
+  { code: 'LW205', title: 'Unknown marker', severity: 'error',
+    message: (f) => `round ${f.round} reaches no marker called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => (f.known ? `markers on the needle: ${f.known}` : 'place it first with "mark NAME"') },
+  { code: 'LW206', title: 'Declared twice', severity: 'error',
+    message: (f) => `${f.what} ${f.name} is declared twice`, hint: () => 'give each one its own name' },
+  { code: 'LW207', title: 'Missing cast on', severity: 'error',
+    message: () => 'the pattern never casts on', hint: () => 'add a line such as: cast on 96' },
+  { code: 'LW208', title: 'Unknown size', severity: 'error',
+    message: (f) => `there is no size ${f.name}`, hint: (f) => `sizes: ${f.known}` },
+  { code: 'LW209', title: 'Round without instructions', severity: 'error',
+    message: (f) => `${f.word} ${f.round} has no instructions${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => `rounds are worked from 1 to ${f.last}; write ${f.word} ${f.round} or widen a range` },
+  { code: 'LW210', title: 'Chart key problem', severity: 'error', message: (f) => String(f.detail),
+    hint: (f) => (f.hint ? String(f.hint) : undefined) },
+  { code: 'LW211', title: 'Mixed whole-round and segment instructions', severity: 'error',
+    message: (f) => `${f.word} ${f.round} has instructions for the whole round and for segment ${f.segment}`,
+    hint: () => 'give every segment its own line for these rounds, or none' },
+  { code: 'LW212', title: 'Ladder range', severity: 'error',
+    message: (f) => `a ladder needs at least two rounds: set up on the first and closed on the last (got ${f.first}-${f.last})` },
+  { code: 'LW213', title: 'Wrong side word', severity: 'warning',
+    message: (f) => `this pattern is worked ${f.construction} but the line says ${f.word}`,
+    hint: (f) => `write ${f.expected}` },
+  { code: 'LW301', title: 'Count does not match the needle', severity: 'error',
+    message: (f) => `${f.word} ${f.round}${where(f)} works ${s(f.worked, 'stitch', 'stitches')} but ${f.onNeedle} ${Number(f.onNeedle) === 1 ? 'is' : 'are'} on the needle${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => {
+      const d = Number(f.onNeedle) - Number(f.worked);
+      return d > 0 ? `work ${s(d, 'more stitch', 'more stitches')}, or end with "k to end"` : `work ${s(-d, 'stitch', 'stitches')} fewer`;
+    } },
+  { code: 'LW302', title: 'Repeat does not fit', severity: 'error',
+    message: (f) => `${f.word} ${f.round}${where(f)}: a repeat of ${s(f.repeat, 'stitch', 'stitches')} does not fit into ${f.available}, ${s(f.over, 'stitch', 'stitches')} left over${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => `add ${Number(f.repeat) - Number(f.over)} stitches, take away ${f.over}, or change the repeat` },
+  { code: 'LW303', title: 'Too few stitches for the stitch', severity: 'error',
+    message: (f) => `${f.word} ${f.round}${where(f)}: ${f.stitch} needs ${f.needs} stitches but only ${f.left} ${Number(f.left) === 1 ? 'is' : 'are'} left${f.size ? ` (size ${f.size})` : ''}` },
+  { code: 'LW304', title: 'Chart row wider than its segment', severity: 'error',
+    message: (f) => `chart ${f.chart} row ${f.row} is ${s(f.width, 'stitch', 'stitches')} wide but only ${f.available} ${Number(f.available) === 1 ? 'is' : 'are'} left in ${f.word} ${f.round}${where(f)}${f.size ? ` (size ${f.size})` : ''}` },
+  { code: 'LW305', title: 'Segment without instructions', severity: 'error',
+    message: (f) => `${f.word} ${f.round}: segment ${f.segment} (${s(f.stitches, 'stitch', 'stitches')}) has no instructions${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => `add a line "${f.word}s ... at ${f.segment}: ..." for this ${f.word}` },
+  { code: 'LW306', title: 'Repeat that works no stitches', severity: 'error',
+    message: () => 'this repeat works no stitches, so it cannot be repeated to the end or to a marker', hint: () => 'give it a fixed number of times' },
+  { code: 'LW307', title: 'Marker not reached', severity: 'error',
+    message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}` },
+  { code: 'LW401', title: 'Backing stitch not worked', severity: 'error',
+    message: (f) => `${f.word} ${f.round}: ${f.stitch} meets a backing stitch in ${f.yarn} and works it as a front stitch${f.size ? ` (size ${f.size})` : ''}`,
+    hint: () => 'work it with "carry" (or let a ladder line work it), or close it with "close"' },
+  { code: 'LW402', title: 'Backing stitch closed twice', severity: 'error',
+    message: (f) => `${f.word} ${f.round}: this backing stitch was already closed in ${f.word} ${f.closedIn}${f.size ? ` (size ${f.size})` : ''}` },
+  { code: 'LW403', title: 'Backing stitch closed without a neighbour', severity: 'error',
+    message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}`,
+    hint: () => 'a backing stitch closes together with the front stitch beside it (close = k2tog, close ssk)' },
+  { code: 'LW404', title: 'Backing stitch never closed', severity: 'error',
+    message: (f) => `${s(f.count, 'backing stitch', 'backing stitches')} in ${f.yarn} set up here ${Number(f.count) === 1 ? 'is' : 'are'} still on the needle after the last ${f.word}${f.size ? ` (size ${f.size})` : ''}`,
+    hint: () => 'close each one with "close" (or end the ladder) before the last round' },
+  { code: 'LW405', title: 'Nothing to close or carry', severity: 'error',
+    message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}` },
+  { code: 'LW501', title: 'Float longer than the limit', severity: 'warning',
+    message: (f) => `${f.rounds}: yarn ${f.yarn} floats behind ${f.stitches} stitches (${f.inches} in / ${f.cm} cm), longer than the ${f.limit} limit${f.size ? ` (size ${f.size})` : ''}`,
+    hint: (f) => `catch ${f.yarn} every ${f.every} stitches or fewer, or add a backing column` },
+  { code: 'LW502', title: 'Yarn colours too alike', severity: 'warning',
+    message: (f) => `yarns ${f.first} and ${f.second} are hard to tell apart in a chart (colour difference ${f.deltaE}, below ${f.threshold})`,
+    hint: () => 'choose colours further apart in lightness or hue' },
+  { code: 'LW503', title: 'No gauge: floats in stitches only', severity: 'info',
+    message: () => 'there is no gauge, so floats are not measured against the float limit', hint: () => 'add a line such as: gauge 28 sts and 32 rounds per 10 cm' },
+  { code: 'LW504', title: 'Unusable colour or gauge', severity: 'error', message: (f) => String(f.detail) },
+  { code: 'LW901', title: 'Pattern too large', severity: 'error',
+    message: (f) => `${f.detail}${f.size ? ` (size ${f.size})` : ''}; stopped working further ${f.word}s`,
+    hint: () => 'check for a repeat count or round number with too many digits' },
+  { code: 'LW902', title: 'More problems not shown', severity: 'info',
+    message: (f) => `${f.count} more problems of this kind (${f.code}) are not listed` },
+];
+
+/** Every code, by code. */
+export const CODES: ReadonlyMap<string, CodeInfo> = new Map(list.map((c) => [c.code, c]));
+/** Every code in catalogue order (for docs and tests). */
+export const CODE_LIST: readonly CodeInfo[] = list;

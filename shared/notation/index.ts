@@ -1,0 +1,77 @@
+/**
+ * The notation front end: source text -> tokens -> CST -> AST, with every
+ * lexing and parsing problem as a diagnostic (LW101, LW102). See README.md.
+ */
+import type { IToken } from 'chevrotain';
+import type { Diagnostic, Span } from '../types';
+import { makeDiagnostic } from '../diagnostics';
+import { lexer } from './tokens';
+import { parseTokens } from './parser';
+import { buildAst, tokenSpan } from './to-ast';
+import type { PatternAst } from './ast';
+
+export type * from './ast';
+export { STITCHES, STITCH_WORDS, MODIFIER_WORDS, OP, stitchByName, resolveStitch, type StitchInfo, type StitchKind } from './stitches';
+export { allTokens, lexer, KEYWORD_WORDS, isKeywordToken } from './tokens';
+export { getParser } from './parser';
+export { tokenSpan, joinSpans } from './to-ast';
+
+/** At most this many lexing and this many parsing diagnostics are listed (then one LW902). */
+export const MAX_SYNTAX_DIAGNOSTICS = 100;
+
+/** A span for a bare offset range within one line of `source` (used where no token exists). */
+export function spanAt(source: string, from: number, to = from): Span {
+  let line = 1, lineStart = 0;
+  for (let i = source.indexOf('\n'); i !== -1 && i < from; i = source.indexOf('\n', i + 1)) { line++; lineStart = i + 1; }
+  return { from, to, line, column: from - lineStart + 1, endLine: line, endColumn: to - lineStart + 1 };
+}
+
+/** The result of reading a source. */
+export interface ParsedSource {
+  ast: PatternAst;
+  tokens: IToken[];
+  diagnostics: Diagnostic[];
+}
+
+/** Reads a source. Never throws on user input; problems are diagnostics. */
+export function parseSource(source: string): ParsedSource {
+  const diagnostics: Diagnostic[] = [];
+  const lexed = lexer.tokenize(source);
+
+  // Adjacent unreadable characters are one problem, not one per character.
+  let lexCount = 0;
+  for (let i = 0; i < lexed.errors.length; i++) {
+    const first = lexed.errors[i];
+    let end = first.offset + first.length;
+    while (i + 1 < lexed.errors.length && lexed.errors[i + 1].offset === end) { i++; end = lexed.errors[i].offset + lexed.errors[i].length; }
+    lexCount++;
+    if (lexCount > MAX_SYNTAX_DIAGNOSTICS) continue;
+    const text = source.slice(first.offset, end);
+    const shown = text.length > 20 ? `${text.slice(0, 20)}...` : text;
+    const span: Span = { from: first.offset, to: end, line: first.line ?? 1, column: first.column ?? 1, endLine: first.line ?? 1, endColumn: (first.column ?? 1) + (end - first.offset) };
+    diagnostics.push(makeDiagnostic('LW101', span, { text: JSON.stringify(shown) }));
+  }
+  if (lexCount > MAX_SYNTAX_DIAGNOSTICS) {
+    diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: lexCount - MAX_SYNTAX_DIAGNOSTICS, code: 'LW101' }));
+  }
+
+  const parsed = parseTokens(lexed.tokens, MAX_SYNTAX_DIAGNOSTICS * 4);
+  let parseCount = 0;
+  for (const e of parsed.errors) {
+    parseCount++;
+    if (parseCount > MAX_SYNTAX_DIAGNOSTICS) continue;
+    let span: Span;
+    if (!Number.isNaN(e.token.startOffset) && e.token.image !== undefined && e.token.tokenType.name !== 'EOF') span = tokenSpan(e.token);
+    else if (e.previous && !Number.isNaN(e.previous.startOffset)) span = tokenSpan(e.previous);
+    else span = spanAt(source, source.length);
+    diagnostics.push(makeDiagnostic('LW102', span, { detail: e.message }));
+  }
+  if (parseCount > MAX_SYNTAX_DIAGNOSTICS || parsed.stopped) {
+    diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: Math.max(0, parseCount - MAX_SYNTAX_DIAGNOSTICS), code: parsed.stopped ? 'LW102; reading stopped' : 'LW102' }));
+  }
+
+  const built = buildAst(parsed.statements.map((s) => s.cst));
+  const comments = (lexed.groups.comments ?? []).map(tokenSpan);
+  built.ast.comments = comments;
+  return { ast: built.ast, tokens: lexed.tokens, diagnostics: [...diagnostics, ...built.diagnostics] };
+}
