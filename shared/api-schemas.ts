@@ -140,4 +140,5 @@ export interface ApiComment {
   resolved: boolean;
   createdAt: string;
 }
-export interface ApiOutboxMessage { id: string; to: string[]; subject: string; text: string; html: string; links: string[]; receivedAt: string }
+/** A mail caught by the local fake SMTP server; `to` is a comma-separated list of addresses. */
+export interface ApiOutboxMessage { id: string; to: string; subject: string; text: string; html: string; links: string[]; receivedAt: string }

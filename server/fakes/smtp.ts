@@ -31,6 +31,9 @@ export interface FakeSmtp extends Outbox {
 /** Options: `port` 0 picks a free port; `outboxDir` keeps `messages.json` there across restarts. */
 export interface FakeSmtpOptions { port: number; host?: string; outboxDir?: string; maxMessages?: number }
 
+/** Recipient addresses of a stored message (`to` is a comma-separated list). */
+const recipients = (m: ApiOutboxMessage) => m.to.split(',').map((a) => a.trim().toLowerCase());
+
 const LINK = /https?:\/\/[^\s<>"')\]]+/g;
 
 function addresses(a: AddressObject | AddressObject[] | undefined): string[] {
@@ -70,7 +73,7 @@ export async function startFakeSmtp(opts: FakeSmtpOptions): Promise<FakeSmtp> {
         const envelopeTo = session.envelope.rcptTo.map((r) => r.address);
         const message: ApiOutboxMessage = {
           id: randomUUID(),
-          to: envelopeTo.length ? envelopeTo : addresses(parsed.to),
+          to: (envelopeTo.length ? envelopeTo : addresses(parsed.to)).join(', '),
           subject: parsed.subject ?? '',
           text,
           html,
@@ -80,7 +83,7 @@ export async function startFakeSmtp(opts: FakeSmtpOptions): Promise<FakeSmtp> {
         messages = [message, ...messages].slice(0, max);
         persist();
         for (const w of [...waiters]) {
-          if (message.to.includes(w.to)) {
+          if (recipients(message).includes(w.to)) {
             waiters.splice(waiters.indexOf(w), 1);
             w.resolve(message);
           }
@@ -105,7 +108,7 @@ export async function startFakeSmtp(opts: FakeSmtpOptions): Promise<FakeSmtp> {
     list: () => [...messages],
     clear() { messages = []; persist(); },
     waitFor(to, timeoutMs = 5000) {
-      const found = messages.find((m) => m.to.includes(to));
+      const found = messages.find((m) => recipients(m).includes(to));
       if (found) return Promise.resolve(found);
       return new Promise((resolve, reject) => {
         const entry = { to, resolve: (m: ApiOutboxMessage) => { clearTimeout(timer); resolve(m); } };
