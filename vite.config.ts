@@ -15,6 +15,11 @@ import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 
+// `vite build` always makes a production bundle, even when the calling
+// process runs with NODE_ENV=development (npm start) or test (npm test):
+// Vite otherwise keeps that NODE_ENV and bundles React's development build.
+if (process.argv.includes('build')) process.env.NODE_ENV = 'production';
+
 export default defineConfig({
   plugins: [react(), tailwindcss()],
   server: {

@@ -6,7 +6,7 @@
  * the editor to the line that made it.
  */
 import { memo, useEffect, useMemo, useRef, useState } from 'react';
-import type { RoundSummary, Span } from '../../../shared';
+import type { RoundSummary, Severity, Span } from '../../../shared';
 import type { CompiledView } from '../../editor/protocol';
 import { floatLength, floatLimitStitches, problemRounds, roundKey } from '../../editor/rounds';
 
@@ -43,7 +43,7 @@ export interface CountsPaneProps {
 export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }: CountsPaneProps) {
   const [onlyProblems, setOnlyProblems] = useState(false);
   const rows = useMemo(() => (view ? buildRows(view) : []), [view]);
-  const problems = useMemo(() => (view ? problemRounds(view) : new Map()), [view]);
+  const problems = useMemo(() => (view ? problemRounds(view) : new Map<string, Severity>()), [view]);
   const limit = view ? floatLimitStitches(view.header) : null;
   const currentRef = useRef<HTMLTableRowElement>(null);
 
