@@ -20,6 +20,11 @@ export interface MarkerPos { name: string; at: number }
 /** A named stretch of the needle between markers: stitches [from, to) in working order. */
 export interface SegmentRange { name: string; from: number; to: number }
 /** A ladder line active on the current round. */
+/**
+ * A ladder line active on the current round. With `every` n the first column
+ * comes after ceil(n/2) front stitches (half an interval, so the stretch
+ * across the start of the round or the edges stays within n), then every n.
+ */
 export interface LadderRun { ladder: LadderLine; phase: 'setup' | 'work' | 'close'; every: number; columns: Set<number>; count: number; src: number; yarn: number }
 /** A backing column set up somewhere in the pattern. */
 export interface ColumnInfo { yarn: number; src: number; round: number }
@@ -113,19 +118,25 @@ export class Machine {
   }
 
   private computeNextEvent(): void {
-    const m = this.mi < this.markersIn.length ? this.markersIn[this.mi].at : Infinity;
-    const s = this.si + 1 < this.segs.length ? this.segs[this.si].to : Infinity;
+    // Markers and boundaries at the scope's end belong to the next scope (or the round's end).
+    const mk = this.mi < this.markersIn.length ? this.markersIn[this.mi].at : Infinity;
+    const m = mk < this.end ? mk : Infinity;
+    const sb = this.si + 1 < this.segs.length ? this.segs[this.si].to : Infinity;
+    const s = sb < this.end ? sb : Infinity;
     this.nextEvent = m < s ? m : s;
   }
 
-  /** Passes markers and segment boundaries at or before the cursor. */
-  passEvents(): void {
-    while (this.mi < this.markersIn.length && this.markersIn[this.mi].at <= this.pos) {
+  /**
+   * Passes markers and segment boundaries at or before the cursor that lie
+   * inside the scope (`final`: also those at its end, when the round ends).
+   */
+  passEvents(final = false): void {
+    while (this.mi < this.markersIn.length && this.markersIn[this.mi].at <= this.pos && (final || this.markersIn[this.mi].at < this.end)) {
       const m = this.markersIn[this.mi++];
       this.markersOut.push({ name: m.name, at: this.store.length - this.outStart });
     }
     let moved = false;
-    while (this.si + 1 < this.segs.length && this.segs[this.si].to <= this.pos) { this.si++; moved = true; }
+    while (this.si + 1 < this.segs.length && this.segs[this.si].to <= this.pos && this.segs[this.si].to < this.end) { this.si++; moved = true; }
     if (moved) this.selectLadder();
     this.computeNextEvent();
   }
@@ -233,7 +244,8 @@ export class Machine {
     const l = this.ladder;
     if (l !== null && l.phase === 'setup') {
       l.count++;
-      const due = l.every > 0 ? l.count % l.every === 0 : l.columns.has(l.count);
+      const half = Math.ceil(l.every / 2);
+      const due = l.every > 0 ? l.count >= half && (l.count - half) % l.every === 0 : l.columns.has(l.count);
       if (due && this.pos < this.end && this.pos < (this.segs[this.si]?.to ?? this.end)) this.raise(l.yarn, l.src, FLAG.MANAGED);
     }
   }

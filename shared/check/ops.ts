@@ -62,7 +62,7 @@ function available(m: Machine, to: ToSpec, span: Span): number {
   if (to.kind === 'last') {
     const keep = m.ctx.graded(to.n);
     if (keep > n) {
-      m.ctx.report('LW302', span, { ...sizeFacts(m), repeat: 1, available: n, over: n - keep });
+      m.ctx.report('LW303', span, { ...sizeFacts(m), stitch: `"to last ${keep}"`, needs: keep, left: n });
       m.problem = true;
       return -1;
     }

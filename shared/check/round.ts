@@ -138,7 +138,7 @@ export function workRounds(
     }
     m.end = prevLen;
     m.pos = prevLen;
-    m.passEvents();
+    m.passEvents(true);
     const offset = m.outStart;
     const count = store.length - offset;
     const floats = measureFloats(store, offset, count, yarnCount, m.catchYarn, m.catchAt, !flat);

@@ -73,7 +73,7 @@ const list: CodeInfo[] = [
     } },
   { code: 'LW302', title: 'Repeat does not fit', severity: 'error',
     message: (f) => `${f.word} ${f.round}${where(f)}: a repeat of ${s(f.repeat, 'stitch', 'stitches')} does not fit into ${f.available}, ${s(f.over, 'stitch', 'stitches')} left over${f.size ? ` (size ${f.size})` : ''}`,
-    hint: (f) => `add ${Number(f.repeat) - Number(f.over)} stitches, take away ${f.over}, or change the repeat` },
+    hint: (f) => `add ${s(Number(f.repeat) - Number(f.over), 'stitch', 'stitches')}, take away ${f.over}, or change the repeat` },
   { code: 'LW303', title: 'Too few stitches for the stitch', severity: 'error',
     message: (f) => `${f.word} ${f.round}${where(f)}: ${f.stitch} needs ${f.needs} stitches but only ${f.left} ${Number(f.left) === 1 ? 'is' : 'are'} left${f.size ? ` (size ${f.size})` : ''}` },
   { code: 'LW304', title: 'Chart row wider than its segment', severity: 'error',
