@@ -11,6 +11,7 @@
  *   the sign-in and library pages; the editor, the compiler and its worker
  *   load with the workspace.
  */
+import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
@@ -22,6 +23,11 @@ if (process.argv.includes('build')) process.env.NODE_ENV = 'production';
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
+  resolve: {
+    // culori's main entry registers every colour space it knows; the browser
+    // gets the tree-shakeable build with the spaces patterns use (see the file).
+    alias: [{ find: /^culori$/, replacement: fileURLToPath(new URL('./src/vendor/culori-browser.ts', import.meta.url)) }],
+  },
   server: {
     host: '127.0.0.1',
     port: 5173,

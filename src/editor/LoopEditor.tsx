@@ -7,18 +7,17 @@
  * is created once per `docKey` (a pattern), so re-renders never reset it.
  */
 import { useEffect, useRef } from 'react';
-import { EditorState, type Extension } from '@codemirror/state';
+import { Compartment, EditorState, type Extension } from '@codemirror/state';
 import {
   drawSelection, EditorView, highlightActiveLine, highlightActiveLineGutter, highlightSpecialChars, keymap, lineNumbers,
 } from '@codemirror/view';
 import { defaultKeymap, history, historyKeymap, indentWithTab } from '@codemirror/commands';
-import { highlightSelectionMatches, searchKeymap } from '@codemirror/search';
 import { completionKeymap, closeBrackets, closeBracketsKeymap } from '@codemirror/autocomplete';
-import { lintGutter, nextDiagnostic, previousDiagnostic } from '@codemirror/lint';
 import '@fontsource/jetbrains-mono/latin-400.css';
 import { compiledField } from './compile-state';
 import { loopCompletion } from './completion';
 import { loopHighlighting } from './highlight';
+import { loopLint, nextProblem, previousProblem } from './lint';
 import { roundHover } from './hover';
 import { loopTheme } from './theme';
 
@@ -51,14 +50,13 @@ export interface LoopEditorProps {
 export function loopExtensions(): Extension[] {
   return [
     lineNumbers(),
-    lintGutter({ hoverTime: 200 }),
+    loopLint(),
     highlightActiveLineGutter(),
     highlightSpecialChars(),
     history(),
     drawSelection(),
     closeBrackets(),
     highlightActiveLine(),
-    highlightSelectionMatches(),
     EditorState.tabSize.of(2),
     compiledField,
     loopHighlighting,
@@ -66,6 +64,20 @@ export function loopExtensions(): Extension[] {
     roundHover,
     loopTheme,
   ];
+}
+
+/**
+ * Find and replace loads on first use (Mod-F): it is not needed to open a
+ * pattern, and leaving it out keeps the workspace's first download smaller.
+ */
+const searchSlot = new Compartment();
+async function openSearch(view: EditorView): Promise<void> {
+  const m = await import('@codemirror/search');
+  const current = searchSlot.get(view.state);
+  if (Array.isArray(current) && current.length === 0) {
+    view.dispatch({ effects: searchSlot.reconfigure([m.search({ top: true }), keymap.of(m.searchKeymap), m.highlightSelectionMatches()]) });
+  }
+  m.openSearchPanel(view);
 }
 
 export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSave, onReady, extraKeys, readOnly = false }: LoopEditorProps) {
@@ -84,12 +96,14 @@ export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSa
         extensions: [
           keymap.of([
             { key: 'Mod-s', preventDefault: true, run: () => { callbacks.current.onSave(); return true; } },
-            { key: 'F8', run: nextDiagnostic, preventDefault: true },
-            { key: 'Shift-F8', run: previousDiagnostic, preventDefault: true },
+            { key: 'F8', run: nextProblem, preventDefault: true },
+            { key: 'Shift-F8', run: previousProblem, preventDefault: true },
+            { key: 'Mod-f', preventDefault: true, run: (v) => { void openSearch(v); return true; } },
           ]),
           extraKeys ?? [],
           EditorState.readOnly.of(readOnly),
-          keymap.of([...closeBracketsKeymap, ...defaultKeymap, ...searchKeymap, ...historyKeymap, ...completionKeymap, indentWithTab]),
+          searchSlot.of([]),
+          keymap.of([...closeBracketsKeymap, ...defaultKeymap, ...historyKeymap, ...completionKeymap, indentWithTab]),
           loopExtensions(),
           EditorView.contentAttributes.of({ 'aria-label': 'Pattern source', spellcheck: 'false', autocapitalize: 'off', autocorrect: 'off' }),
           EditorView.updateListener.of((u) => {

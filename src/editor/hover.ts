@@ -35,7 +35,8 @@ export const roundHover = hoverTooltip(
         dom.className = 'lw-round-hover';
         const table = document.createElement('table');
         const head = document.createElement('tr');
-        for (const h of ['Size', 'Round', 'Front', 'Backing', 'Total', 'Longest float']) head.append(cell('th', h));
+        const word = compiled.header.construction === 'flat' ? 'Row' : 'Round';
+        for (const h of ['Size', word, 'Front', 'Backing', 'Total', 'Longest float']) head.append(cell('th', h));
         const thead = document.createElement('thead');
         thead.append(head);
         const body = document.createElement('tbody');
@@ -54,7 +55,7 @@ export const roundHover = hoverTooltip(
           });
           if (rounds.length > MAX_ROWS_PER_SIZE) {
             const tr = document.createElement('tr');
-            const td = cell('td', `…and ${rounds.length - MAX_ROWS_PER_SIZE} more rounds`, 'lw-more');
+            const td = cell('td', `…and ${rounds.length - MAX_ROWS_PER_SIZE} more ${word.toLowerCase()}s`, 'lw-more');
             td.colSpan = 6;
             tr.append(td);
             body.append(tr);

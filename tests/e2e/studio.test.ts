@@ -14,6 +14,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
+import { compile } from '../../shared/index.ts';
 import { DESIGNER, replaceEditorLine, shot, signIn, startHarness, type Harness } from './harness.ts';
 
 const SOURCE = [
@@ -33,20 +34,38 @@ const SOURCE = [
 ].join('\n');
 const ROUND5_LINE = 10;
 
+/**
+ * A flat panel with two yarns of nearly the same grey and a 10- and a
+ * 20-stitch run of one colour: at 22 sts per 10 cm (2.2 per cm) 10 sts are
+ * about 4.5 cm, longer than the 1 in (2.54 cm) float limit (common practice:
+ * catch floats longer than about an inch).
+ */
+const TOTE = [
+  'title "Quarry Tote panel"', 'sizes One', 'gauge 22 sts and 30 rows per 10 cm',
+  'yarn A "Slate" #5a6470', 'yarn B "Shale" #5e6873', 'yarn C "Sand" #d9c7a0', 'work flat', 'cast on 30 in A',
+  'rows 1-2: (k3 in A, k2 in B) to end', 'row 3: k10 in C, k20 in A', '',
+].join('\n');
+
 let h: Harness;
 let token: string;
 
 /** A fresh pattern for one test, owned by the demo designer. */
-async function newPattern(title: string): Promise<number> {
-  const res = await h.api<{ pattern: { id: number } }>(token, 'POST', '/api/patterns', { title, source: SOURCE });
+async function newPattern(title: string, source = SOURCE): Promise<number> {
+  const res = await h.api<{ pattern: { id: number } }>(token, 'POST', '/api/patterns', { title, source });
   expect(res.status).toBe(201);
   return res.body.pattern.id;
 }
 
-async function openPattern(page: Page, id: number): Promise<void> {
+/** Opens a pattern's workspace (signing in first if the browser has no session) and waits for its first check. */
+async function openPattern(page: Page, id: number, status: RegExp = /Adds up/): Promise<void> {
   await page.goto(`${h.baseUrl}/patterns/${id}`);
+  if (page.url().includes('/sign-in') || (await page.getByRole('button', { name: 'Sign in' }).count()) > 0) {
+    await page.getByLabel('E-mail').fill(DESIGNER.email);
+    await page.getByLabel('Password').fill(DESIGNER.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+  }
   await page.locator('.cm-content').waitFor();
-  await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 15_000 }).toContain('Adds up');
+  await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 15_000 }).toMatch(status);
 }
 
 beforeAll(async () => {
@@ -90,7 +109,8 @@ describe('the studio in Chromium', () => {
     // Sizes S and M still add up: no problem names them.
     const all = (await problems.allTextContents()).join('\n');
     expect(all).not.toMatch(/size [SM]\b/);
-    await expect.poll(() => page.locator('.cm-lint-marker-error').count()).toBeGreaterThan(0);
+    await expect.poll(() => page.locator('.lw-lint-marker-error').count()).toBeGreaterThan(0);
+    expect(await page.locator('.cm-lintRange-error').first().textContent()).toBeTruthy();
     await shot(page, '03-workspace-problem');
 
     // Clicking the problem moves the cursor to round 5's line.
@@ -157,5 +177,28 @@ describe('the studio in Chromium', () => {
     expect(two.body.revision.source).toContain('# from the second tab');
     await first.close();
     await second.close();
+  }, 120_000);
+
+  it('shows the same problems in the browser as the compiler reports on the server, long floats and too-alike colours included', async () => {
+    const id = await newPattern(`Quarry Tote panel ${Date.now()}`, TOTE);
+    const page = await h.context.newPage();
+    await openPattern(page, id, /warning/);
+    await page.keyboard.press('Alt+2');
+    const items = page.getByRole('list', { name: 'Problems' }).getByRole('listitem');
+    const expected = compile(TOTE).diagnostics;
+    expect(expected.map((d) => d.code).sort()).toEqual(['LW501', 'LW501', 'LW502']);
+    await expect.poll(() => items.count()).toBe(expected.length);
+    const shown = (await items.allTextContents()).join('\n');
+    for (const d of expected) {
+      const message = d.size ? d.message.replace(` (size ${d.size})`, '') : d.message;
+      expect(shown).toContain(message);
+      expect(shown).toContain(d.code);
+    }
+    // The counts pane flags the 20-stitch float of row 3 (size One).
+    await page.keyboard.press('Alt+1');
+    const row3 = page.getByRole('row', { name: /^Row 3/ });
+    await expect.poll(() => row3.textContent()).toContain('20 C');
+    await shot(page, '05-floats-and-colours');
+    await page.close();
   }, 120_000);
 });

@@ -57,7 +57,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
   if (view.sizes.length === 0 || rows.length === 0) {
     return (
       <div className="p-6 text-sm text-tide-700">
-        <h3 className="font-semibold text-tide-900">No rounds yet</h3>
+        <h3 className="font-semibold text-tide-900">No {view.header.construction === 'flat' ? 'rows' : 'rounds'} yet</h3>
         <p className="mt-1">
           Cast on and write the first round; the stitch count after every round appears here for every size.
           {view.diagnostics.some((d) => d.severity === 'error') && ' (Fix the problems first if the pattern does not parse.)'}
@@ -67,6 +67,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
   }
 
   const sizeNames = view.sizes.map((s) => s.name);
+  const word = view.header.construction === 'flat' ? 'Row' : 'Round';
   const shown = onlyProblems ? rows.filter((row) => sizeNames.some((s) => problems.has(roundKey(s, row.number)))) : rows;
   const anyBacking = view.sizes.some((s) => s.rounds.some((r) => r.backing > 0));
 
@@ -90,10 +91,10 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
         </label>
       </div>
       <div className="min-h-0 flex-1 overflow-auto" tabIndex={-1}>
-        <table className="w-full border-separate border-spacing-0 text-tally tabular" aria-label="Stitch counts per round and size">
+        <table className="w-full border-separate border-spacing-0 text-tally tabular" aria-label={`Stitch counts per ${word.toLowerCase()} and size`}>
           <thead>
             <tr>
-              <th scope="col" className="sticky top-0 z-10 border-b border-tide-200 bg-tide-50 px-3 py-1.5 text-left text-caption font-semibold text-tide-700">Round</th>
+              <th scope="col" className="sticky top-0 z-10 border-b border-tide-200 bg-tide-50 px-3 py-1.5 text-left text-caption font-semibold text-tide-700">{word}</th>
               {sizeNames.map((s) => (
                 <th key={s} scope="col" className="sticky top-0 z-10 border-b border-l border-tide-200 bg-tide-50 px-3 py-1.5 text-left text-caption font-semibold text-tide-700">
                   Size {s}
@@ -111,7 +112,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
                   className={current ? 'bg-lavender-50' : index % 2 ? 'bg-tide-50/40' : ''}>
                   <th scope="row" className={`border-b border-tide-100 px-1 py-0.5 text-left font-normal ${current ? 'shadow-[inset_3px_0_0] shadow-lavender-600' : ''}`}>
                     <button type="button" className="w-full rounded-stitch px-2 py-0.5 text-left font-medium text-lavender-800 hover:bg-lavender-100"
-                      onClick={() => onJump(row.span)} aria-label={`Round ${row.number}: go to its line`}>
+                      onClick={() => onJump(row.span)} aria-label={`${word} ${row.number}: go to its line`}>
                       {row.number}
                       {side === 'WS' && <span className="ml-1 text-caption font-normal text-tide-600">WS</span>}
                     </button>
@@ -123,7 +124,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
                     const long = f && limit !== null && f.stitches > limit;
                     return (
                       <td key={sizeNames[i]} className={`border-b border-l border-tide-100 px-3 py-1 ${severity ? tint[severity] : ''}`}
-                        title={severity ? `Round ${row.number}, size ${sizeNames[i]} has ${severity === 'error' ? 'an error' : 'a warning'}; see Problems` : undefined}>
+                        title={severity ? `${word} ${row.number}, size ${sizeNames[i]} has ${severity === 'error' ? 'an error' : 'a warning'}; see Problems` : undefined}>
                         <span className="font-semibold text-tide-900">{r.total}</span>
                         {r.backing > 0 && <span className="text-tide-600"> ({r.front} + {r.backing})</span>}
                         <span className={`ml-2 ${long ? 'font-semibold text-glasswort-700' : 'text-tide-600'}`}>

@@ -139,7 +139,8 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
   const hereLabel = hereRounds.length
     ? (() => {
       const nums = hereRounds[0].rounds.map((r) => r.number);
-      return nums.length > 1 ? `Rounds ${nums[0]}–${nums[nums.length - 1]}` : `Round ${nums[0]}`;
+      const word = view?.header.construction === 'flat' ? 'Row' : 'Round';
+      return nums.length > 1 ? `${word}s ${nums[0]}–${nums[nums.length - 1]}` : `${word} ${nums[0]}`;
     })()
     : null;
 
