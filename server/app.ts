@@ -55,6 +55,8 @@ export interface AppOptions {
   bcryptCost?: number;
   /** Session lifetime in seconds (default 7 days). */
   sessionSeconds?: number;
+  /** Express `trust proxy` setting, for rate limits behind a load balancer (default false; env TRUST_PROXY in server/index.ts). */
+  trustProxy?: boolean | number | string;
 }
 
 const repoRoot = path.resolve(import.meta.dirname, '..');
@@ -91,6 +93,7 @@ export function createApp(opts: AppOptions): Express {
 
   const app = express();
   app.disable('x-powered-by');
+  app.set('trust proxy', opts.trustProxy ?? false);
   app.use(helmet({
     contentSecurityPolicy: {
       useDefaults: true,

@@ -25,6 +25,8 @@ const app = createApp({
   jwtSecret: resolveJwtSecret(dataDir),
   storageDir: path.join(dataDir, 'uploads'),
   publicUrl: process.env.PUBLIC_URL ?? `http://${host}:${port}`,
+  // e.g. TRUST_PROXY=1 behind one reverse proxy, so rate limits see the client address.
+  trustProxy: process.env.TRUST_PROXY ? (/^\d+$/.test(process.env.TRUST_PROXY) ? Number(process.env.TRUST_PROXY) : process.env.TRUST_PROXY) : false,
 });
 const server = app.listen(port, host, () => console.log(`Loopwright API on http://${host}:${port}`));
 const shutdown = () => server.close(() => { mailer.close(); void sequelize.close().then(() => process.exit(0)); });

@@ -7,7 +7,7 @@
  * another.
  */
 import { randomBytes } from 'node:crypto';
-import { mkdtempSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
@@ -53,6 +53,7 @@ export async function startHarness(overrides: Partial<AppOptions> = {}): Promise
       mailer.close();
       await smtp.close();
       await sequelize.close();
+      rmSync(storageDir, { recursive: true, force: true });
     },
   };
 }
