@@ -11,7 +11,7 @@ process.env.NODE_ENV ??= 'development';
 const root = path.resolve(import.meta.dirname, '..');
 
 async function main(): Promise<void> {
-  const backend = await startLocalBackend({ name: 'start', dbPort: 3316, distDir: null });
+  const backend = await startLocalBackend({ name: 'start', dbPort: 3316, distDir: null, publicUrl: 'http://127.0.0.1:5173' });
   const vite = spawn(path.join(root, 'node_modules', '.bin', 'vite'), ['--host', '127.0.0.1', '--port', '5173', '--strictPort'], { cwd: root, stdio: 'inherit' });
   const stop = async () => {
     if (vite.exitCode === null) {

@@ -24,6 +24,8 @@ export interface LocalBackendOptions {
   appPort?: number;    // default PORT or 4310
   smtpPort?: number;   // default 2526
   distDir?: string | null;
+  /** Base URL for mailed links; default PUBLIC_URL or the app URL (dev passes the Vite URL). */
+  publicUrl?: string;
 }
 
 /** A running local back end. */
@@ -68,7 +70,7 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
       mailer,
       jwtSecret: resolveJwtSecret(dataDir),
       storageDir: path.join(dataDir, 'uploads'),
-      publicUrl: process.env.PUBLIC_URL ?? url,
+      publicUrl: process.env.PUBLIC_URL ?? opts.publicUrl ?? url,
       outbox: smtp,
       distDir: opts.distDir,
     });

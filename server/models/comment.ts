@@ -19,6 +19,7 @@ export class Comment extends Model<InferAttributes<Comment>, InferCreationAttrib
   declare author?: NonAttribute<User>;
 }
 
+/** Binds the Comment model to `sequelize` (table `comments`). */
 export function initComment(sequelize: Sequelize): void {
   Comment.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

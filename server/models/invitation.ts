@@ -19,6 +19,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare pattern?: NonAttribute<Pattern>;
 }
 
+/** Binds the Invitation model to `sequelize` (table `invitations`). */
 export function initInvitation(sequelize: Sequelize): void {
   Invitation.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

@@ -6,6 +6,7 @@ import type { User } from './user.ts';
 export const MEMBER_ROLES = ['editor', 'test-knitter', 'knitter'] as const;
 export type MemberRole = (typeof MEMBER_ROLES)[number];
 
+/** Row of `memberships`; unique per (pattern, user). */
 export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
   declare id: CreationOptional<number>;
   declare patternId: ForeignKey<Pattern['id']>;
@@ -17,6 +18,7 @@ export class Membership extends Model<InferAttributes<Membership>, InferCreation
   declare pattern?: NonAttribute<Pattern>;
 }
 
+/** Binds the Membership model to `sequelize`. */
 export function initMembership(sequelize: Sequelize): void {
   Membership.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

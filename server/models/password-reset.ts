@@ -12,6 +12,7 @@ export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCr
   declare updatedAt: CreationOptional<Date>;
 }
 
+/** Binds the PasswordReset model to `sequelize` (table `password_resets`). */
 export function initPasswordReset(sequelize: Sequelize): void {
   PasswordReset.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

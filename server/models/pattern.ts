@@ -5,6 +5,7 @@ import type { User } from './user.ts';
 export const PATTERN_STATUSES = ['draft', 'in-review', 'approved', 'released'] as const;
 export type PatternStatus = (typeof PATTERN_STATUSES)[number];
 
+/** Row of `patterns`; `latestRevision` is advanced only inside the save transaction. */
 export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttributes<Pattern>> {
   declare id: CreationOptional<number>;
   declare ownerId: ForeignKey<User['id']>;
@@ -21,6 +22,7 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
   declare owner?: NonAttribute<User>;
 }
 
+/** Binds the Pattern model to `sequelize`. */
 export function initPattern(sequelize: Sequelize): void {
   Pattern.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

@@ -15,6 +15,7 @@ export interface StoredSummary {
   sizes: { name: string; rounds: { number: number; front: number; backing: number; total: number }[] }[];
 }
 
+/** Row of `revisions`; unique per (pattern, number); never updated. */
 export class Revision extends Model<InferAttributes<Revision>, InferCreationAttributes<Revision>> {
   declare id: CreationOptional<number>;
   declare patternId: ForeignKey<Pattern['id']>;
@@ -29,6 +30,7 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare author?: NonAttribute<User>;
 }
 
+/** Binds the Revision model to `sequelize`; its update hook refuses every change. */
 export function initRevision(sequelize: Sequelize): void {
   Revision.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

@@ -5,6 +5,7 @@ import type { User } from './user.ts';
 export const UPLOAD_KINDS = ['swatch', 'source'] as const;
 export type UploadKind = (typeof UPLOAD_KINDS)[number];
 
+/** Row of `uploads`. */
 export class Upload extends Model<InferAttributes<Upload>, InferCreationAttributes<Upload>> {
   declare id: CreationOptional<number>;
   declare ownerId: ForeignKey<User['id']>;
@@ -19,6 +20,7 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare createdAt: CreationOptional<Date>;
 }
 
+/** Binds the Upload model to `sequelize`. */
 export function initUpload(sequelize: Sequelize): void {
   Upload.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

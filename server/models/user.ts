@@ -5,6 +5,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 export const GLOBAL_ROLES = ['designer', 'editor', 'knitter', 'admin'] as const;
 export type GlobalRole = (typeof GLOBAL_ROLES)[number];
 
+/** Row of `users`; `passwordHash` never leaves the server (see toApiUser). */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
   declare email: string;
@@ -17,11 +18,13 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
+  /** True when the account holds `role` globally. */
   hasRole(role: GlobalRole): boolean {
     return this.roles.includes(role);
   }
 }
 
+/** Binds the User model to `sequelize`. */
 export function initUser(sequelize: Sequelize): void {
   User.init({
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

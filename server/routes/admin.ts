@@ -5,6 +5,7 @@ import { authorizeAdmin } from '../services/access.ts';
 import { listUsers, setRoles } from '../services/admin.ts';
 import { intParam, parseBody } from './params.ts';
 
+/** Admin-only account routes (403 for everyone else). */
 export function adminRoutes(): Router {
   const r = Router();
   r.get('/admin/users', async (req, res) => {

@@ -26,6 +26,7 @@ export function startSession(ctx: ServerContext, res: Response, user: User): str
 /** Rate limiters for the sign-in, register and reset routes. */
 export interface AuthLimiters { login: RequestHandler; register: RequestHandler; reset: RequestHandler }
 
+/** Register, sign in/out, /me and password resets; `limiters` guard the first three kinds. */
 export function authRoutes(ctx: ServerContext, limiters: AuthLimiters): Router {
   const r = Router();
 

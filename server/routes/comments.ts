@@ -5,6 +5,7 @@ import { requireUser } from '../services/access.ts';
 import { addComment, listComments, setResolved } from '../services/comments.ts';
 import { intParam, parseBody } from './params.ts';
 
+/** Comment routes; access is decided by the `comment` action of the policy. */
 export function commentRoutes(): Router {
   const r = Router();
   r.get('/patterns/:id/revisions/:number/comments', async (req, res) => {

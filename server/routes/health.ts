@@ -16,6 +16,7 @@ export async function isDatabaseUp(sequelize: Sequelize, timeoutMs = HEALTH_DB_T
   }
 }
 
+/** GET /health: 200 `{ok:true,db:"up"}` or 503 `{ok:false,db:"down"}`. */
 export function healthRoutes(sequelize: Sequelize): Router {
   const r = Router();
   r.get('/health', async (_req, res) => {

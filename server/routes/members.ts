@@ -7,6 +7,7 @@ import { acceptInvitation, describeInvitation, inviteMember, listMembers, remove
 import { startSession } from './auth.ts';
 import { intParam, parseBody } from './params.ts';
 
+/** Member list, invitations by mail, acceptance and removal. */
 export function memberRoutes(ctx: ServerContext): Router {
   const r = Router();
 

@@ -6,6 +6,7 @@ import { authorizeCreatePattern, requireUser } from '../services/access.ts';
 import { changeStatus, createPattern, getPattern, getRevision, listPatterns, listRevisions, saveRevision } from '../services/patterns.ts';
 import { intParam, parseBody } from './params.ts';
 
+/** Pattern and revision routes; every pattern route goes through the access policy. */
 export function patternRoutes(ctx: ServerContext): Router {
   const r = Router();
 

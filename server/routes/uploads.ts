@@ -11,6 +11,7 @@ import { intParam } from './params.ts';
 const photoUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 5 } }).single('file');
 const sourceUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: SOURCE_MAX_BYTES, files: 1, fields: 5 } }).single('file');
 
+/** Import, swatch photo upload/list and file download routes. */
 export function uploadRoutes(ctx: ServerContext): Router {
   const r = Router();
 
