@@ -57,6 +57,8 @@ export function loopExtensions(): Extension[] {
     drawSelection(),
     closeBrackets(),
     highlightActiveLine(),
+    // Long rounds wrap rather than scroll sideways in a half-width editor.
+    EditorView.lineWrapping,
     EditorState.tabSize.of(2),
     compiledField,
     loopHighlighting,

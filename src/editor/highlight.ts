@@ -7,7 +7,7 @@
  * are mapped through the edit, so nothing flickers.
  */
 import { RangeSetBuilder, StateEffect, StateField, type EditorState } from '@codemirror/state';
-import { Decoration, EditorView, type DecorationSet } from '@codemirror/view';
+import { Decoration, EditorView, WidgetType, type DecorationSet } from '@codemirror/view';
 import type { HighlightToken, TokensMessage } from './protocol';
 
 const kinds: HighlightToken['kind'][] = ['keyword', 'stitch', 'number', 'comment', 'string', 'yarn', 'colour', 'name', 'punctuation', 'invalid'];
@@ -34,9 +34,28 @@ export const setTokens = StateEffect.define<HighlightToken[]>();
 
 interface TokenState { tokens: HighlightToken[]; decorations: DecorationSet; fresh: boolean }
 
-function build(tokens: HighlightToken[]): DecorationSet {
+/** A small square of a yarn's colour shown before its #rrggbb (decorative). */
+class Swatch extends WidgetType {
+  constructor(readonly colour: string) { super(); }
+  override eq(other: Swatch) { return other.colour === this.colour; }
+  override toDOM() {
+    const el = document.createElement('span');
+    el.className = 'lw-swatch';
+    el.style.backgroundColor = this.colour;
+    el.setAttribute('aria-hidden', 'true');
+    return el;
+  }
+}
+
+function build(tokens: HighlightToken[], doc: EditorState['doc']): DecorationSet {
   const builder = new RangeSetBuilder<Decoration>();
-  for (const t of tokens) builder.add(t.from, t.to, marks.get(t.kind)!);
+  for (const t of tokens) {
+    if (t.kind === 'colour') {
+      const colour = doc.sliceString(t.from, t.to);
+      if (/^#[0-9a-fA-F]{6}$/.test(colour)) builder.add(t.from, t.from, Decoration.widget({ widget: new Swatch(colour), side: -1 }));
+    }
+    builder.add(t.from, t.to, marks.get(t.kind)!);
+  }
   return builder.finish();
 }
 
@@ -47,7 +66,7 @@ export const tokenField = StateField.define<TokenState>({
     for (const e of tr.effects) {
       if (e.is(setTokens)) {
         const tokens = normalizeTokens(e.value, tr.state.doc.length);
-        return { tokens, decorations: build(tokens), fresh: true };
+        return { tokens, decorations: build(tokens, tr.state.doc), fresh: true };
       }
     }
     if (!tr.docChanged) return value;

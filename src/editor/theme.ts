@@ -65,6 +65,7 @@ export const loopTheme = EditorView.theme(
     '.lw-colour': { color: '#6d4e13' },
     '.lw-name': { color: '#0f5c55' },
     '.lw-punctuation': { color: '#56636b' },
+    '.lw-swatch': { display: 'inline-block', width: '0.8em', height: '0.8em', marginRight: '0.3em', verticalAlign: '-0.05em', borderRadius: '2px', boxShadow: 'inset 0 0 0 1px rgb(0 0 0 / 0.25)' },
     '.lw-invalid': { color: '#9d3430', textDecoration: 'underline dotted' },
   },
   { dark: false },

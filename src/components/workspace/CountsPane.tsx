@@ -87,7 +87,7 @@ export const CountsPane = memo(function CountsPane({ view, cursorLine, onJump }:
         </span>
         <label className="ml-auto flex items-center gap-1.5">
           <input type="checkbox" checked={onlyProblems} onChange={(e) => setOnlyProblems(e.target.checked)} className="accent-lavender-700" />
-          Only rounds with problems
+          Only {word.toLowerCase()}s with problems
         </label>
       </div>
       <div className="min-h-0 flex-1 overflow-auto" tabIndex={-1}>

@@ -29,10 +29,10 @@ export function WorkspaceHeader(p: WorkspaceHeaderProps) {
   const sizes = p.view?.sizes.length ?? 0;
   return (
     <div className="flex h-14 shrink-0 items-center gap-4 border-b border-tide-200 bg-white px-4">
-      <Link to="/patterns" className="rounded-stitch px-1.5 py-1 text-sm text-tide-700 hover:bg-tide-100 hover:text-tide-900">
+      <Link to="/patterns" className="shrink-0 whitespace-nowrap rounded-stitch px-1.5 py-1 text-sm text-tide-700 hover:bg-tide-100 hover:text-tide-900">
         <span aria-hidden="true">←</span> Patterns
       </Link>
-      <div className="min-w-0">
+      <div className="min-w-0 flex-1">
         <div className="flex items-center gap-2">
           <h1 className="truncate text-base font-semibold text-tide-900">{p.title || 'Untitled pattern'}</h1>
           <StatusBadge status={p.status} />
@@ -55,7 +55,7 @@ export function WorkspaceHeader(p: WorkspaceHeaderProps) {
       <button
         type="button"
         onClick={p.onShowProblems}
-        className={`ml-auto flex items-center gap-2 rounded-full border px-3 py-1 text-caption font-medium ${
+        className={`flex shrink-0 items-center gap-2 whitespace-nowrap rounded-full border px-3 py-1 text-caption font-medium ${
           errors ? 'border-glasswort-200 bg-glasswort-50 text-glasswort-700'
             : warnings ? 'border-mudflat-200 bg-mudflat-50 text-mudflat-800'
               : 'border-samphire-200 bg-samphire-50 text-samphire-800'
@@ -70,16 +70,18 @@ export function WorkspaceHeader(p: WorkspaceHeaderProps) {
       </button>
 
       {p.dirty && (
-        <span className="flex items-center gap-1.5 text-caption text-mudflat-800" data-testid="unsaved">
+        <span className="flex shrink-0 items-center gap-1.5 whitespace-nowrap text-caption text-mudflat-800" data-testid="unsaved">
           <span className="h-2 w-2 rounded-full bg-mudflat-500" aria-hidden="true" />
           Unsaved changes
         </span>
       )}
-      <button type="button" className="btn btn-quiet btn-sm" onClick={p.onHelp} aria-keyshortcuts="F1" title="Keyboard shortcuts (F1)">
-        <span aria-hidden="true">⌨</span> Shortcuts
+      <button type="button" className="btn btn-quiet btn-sm shrink-0" onClick={p.onHelp} aria-keyshortcuts="F1" title="Keyboard shortcuts (F1)">
+        <span aria-hidden="true">⌨</span>
+        <span className="hidden xl:inline">Shortcuts</span>
+        <span className="sr-only xl:hidden">Keyboard shortcuts</span>
       </button>
       {p.canEdit && (
-        <button type="button" className="btn btn-primary" onClick={p.onSave} aria-keyshortcuts="Control+S" title={`Save a revision (${keyLabel('Mod')}+S)`}>
+        <button type="button" className="btn btn-primary shrink-0" onClick={p.onSave} aria-keyshortcuts="Control+S" title={`Save a revision (${keyLabel('Mod')}+S)`}>
           Save…
         </button>
       )}
