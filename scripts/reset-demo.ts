@@ -3,24 +3,15 @@
  * generated secrets). The next `npm start` initialises a fresh database and
  * seeds the demo data again. Refuses while `npm start` is running.
  */
-import { existsSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, rmSync } from 'node:fs';
 import path from 'node:path';
+import { findRunningInstance } from '../server/db/launcher.ts';
 
 const dir = path.resolve(import.meta.dirname, '..', '.data', 'start');
 
-function runningOwner(): number | null {
-  try {
-    const { ownerPid } = JSON.parse(readFileSync(path.join(dir, 'launcher.json'), 'utf8')) as { ownerPid: number };
-    process.kill(ownerPid, 0);
-    return ownerPid;
-  } catch {
-    return null;
-  }
-}
-
-const owner = runningOwner();
-if (owner !== null) {
-  console.error(`npm start is still running (process ${owner}); stop it with Ctrl-C first.`);
+const running = findRunningInstance('start');
+if (running) {
+  console.error(`npm start is still running (process ${running.ownerPid}); stop it with Ctrl-C first.`);
   process.exit(1);
 }
 if (existsSync(dir)) {

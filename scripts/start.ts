@@ -5,11 +5,17 @@
  * MariaDB included.
  */
 import { describeDemo, startLocalBackend, stopOnSignals } from '../server/boot.ts';
+import { findRunningInstance } from '../server/db/launcher.ts';
 import { buildClient, staleReason } from './client-build.ts';
 
 process.env.NODE_ENV ??= 'development';
 
 async function main(): Promise<void> {
+  // Refuse before touching dist/, which the running instance is serving.
+  const running = findRunningInstance('start');
+  if (running) {
+    throw new Error(`Loopwright is already running (process ${running.ownerPid}, database on port ${running.port}, since ${running.startedAt}). Stop it with Ctrl-C in its terminal first.`);
+  }
   const reason = staleReason();
   if (reason) {
     console.log(`Building the client (${reason}) ...`);

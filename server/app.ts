@@ -121,7 +121,7 @@ export function createApp(opts: AppOptions): Express {
   api.use(commentRoutes());
   api.use(adminRoutes());
   if (env === 'development' || env === 'test') api.use(devRoutes(opts.outbox ?? null));
-  api.use((req, _res, next) => next(new AppError(404, 'not-found', `There is no API route ${req.method} ${req.path}.`)));
+  api.use((req, _res, next) => next(new AppError(404, 'not-found', `There is no API route ${req.method} ${req.baseUrl}${req.path}.`)));
   app.use('/api', api);
 
   const distDir = opts.distDir === undefined ? path.join(repoRoot, 'dist') : opts.distDir;

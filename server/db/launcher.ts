@@ -60,7 +60,8 @@ const APP_USER = 'loopwright';
 const APP_DATABASE = 'loopwright';
 
 interface Credentials { rootPassword: string; user: string; password: string; database: string }
-interface OwnerRecord { ownerPid: number; serverPid: number; port: number; startedAt: string }
+/** Who runs a server: written to launcher.json on start. */
+export interface OwnerRecord { ownerPid: number; serverPid: number; port: number; startedAt: string }
 
 /** Paths used for one named instance. */
 export function instancePaths(name: string, baseDir = path.join(repoRoot, '.data')) {
@@ -166,6 +167,19 @@ async function stopPid(pid: number): Promise<void> {
   if (await waitForExit(pid, 30_000)) return;
   try { process.kill(pid, 'SIGKILL'); } catch { /* already gone */ }
   await waitForExit(pid, 5_000);
+}
+
+/**
+ * The live owner of a running server for `name`, if any: the Node process
+ * that started it and the mariadbd pid. Lets scripts refuse early (before a
+ * client build, say) with the same facts the launcher would give.
+ */
+export function findRunningInstance(name: string, baseDir?: string): OwnerRecord | null {
+  const p = instancePaths(name, baseDir);
+  const owner = readJson<OwnerRecord>(p.owner);
+  if (!owner || !isAlive(owner.ownerPid)) return null;
+  const pid = readPid(p.pidFile) ?? owner.serverPid;
+  return isMariadbProcess(pid) ? { ...owner, serverPid: pid } : null;
 }
 
 /**
