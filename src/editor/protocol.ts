@@ -65,4 +65,30 @@ export interface CompiledView {
   crash?: string;
 }
 
-export type WorkerAnswer = VocabularyMessage | TokensMessage | CompiledView;
+/** Which views the page shows; the worker renders them after each compile (null: not shown, not rendered). */
+export interface ViewSettings {
+  /** Chart of one size (null size: the first), front or back of the work, cell size in px. */
+  chart: { size: string | null; side: 'front' | 'back'; cell: number } | null;
+}
+
+/** Page → worker: the views to render from now on. */
+export interface SettingsMessage {
+  type: 'settings';
+  settings: ViewSettings;
+}
+
+/** Worker → page: a rendered chart (an SVG document as text, all text escaped by the renderer). */
+export interface ChartMessage {
+  type: 'chart';
+  /** The source message whose compile this was drawn from. */
+  id: number;
+  size: string;
+  side: 'front' | 'back';
+  cell: number;
+  svg: string | null;
+  /** Why there is no chart, in plain words. */
+  problem?: string;
+}
+
+export type WorkerMessage = SourceMessage | SettingsMessage;
+export type WorkerAnswer = VocabularyMessage | TokensMessage | CompiledView | ChartMessage;

@@ -5,7 +5,7 @@
  * dropped. The worker lives as long as the component.
  */
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { CompiledView, TokensMessage, VocabularyMessage, WorkerAnswer } from './protocol';
+import type { ChartMessage, CompiledView, TokensMessage, ViewSettings, VocabularyMessage, WorkerAnswer } from './protocol';
 
 /** Default quiet time before compiling, in milliseconds. */
 export const COMPILE_DEBOUNCE_MS = 150;
@@ -17,6 +17,10 @@ export interface Compiler {
   pending: boolean;
   /** Send a new text; `immediate` compiles without the wait. */
   update: (source: string, immediate?: boolean) => void;
+  /** The newest chart drawing (for the settings last sent), or null. */
+  chart: ChartMessage | null;
+  /** Tell the worker which views to draw. */
+  setViews: (settings: ViewSettings) => void;
 }
 
 export interface CompilerListeners {
@@ -34,6 +38,7 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
   const queued = useRef<unknown[]>([]);
   const [view, setView] = useState<CompiledView | null>(null);
   const [pending, setPending] = useState(false);
+  const [chart, setChart] = useState<ChartMessage | null>(null);
 
   useEffect(() => {
     const w = new Worker(new URL('./compile.worker.ts', import.meta.url), { type: 'module', name: 'loopwright-compile' });
@@ -41,6 +46,7 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
       const m = e.data;
       if (m.type === 'vocabulary') listen.current.onVocabulary(m);
       else if (m.type === 'tokens') { if (m.id === wanted.current) listen.current.onTokens(m); }
+      else if (m.type === 'chart') setChart(m);
       else if (m.id === wanted.current) { setView(m); setPending(false); }
     };
     worker.current = w;
@@ -61,5 +67,11 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
     else queued.current.push(msg);
   }, [delayMs]);
 
-  return { view, pending, update };
+  const setViews = useCallback((settings: ViewSettings) => {
+    const msg = { type: 'settings', settings };
+    if (worker.current) worker.current.postMessage(msg);
+    else queued.current.push(msg);
+  }, []);
+
+  return { view, pending, update, chart, setViews };
 }

@@ -123,6 +123,21 @@ describe('the studio in Chromium', () => {
     await expect.poll(() => problems.count()).toBe(0);
     expect(await page.getByTestId('unsaved').isVisible()).toBe(true);
 
+    // The chart follows the text: round 6 of size M has 120 stitches; worked
+    // in yarn B they are drawn in B.
+    await page.keyboard.press('Alt+3');
+    const chart = page.getByTestId('chart');
+    await page.getByRole('group', { name: 'Size' }).getByRole('button', { name: 'M', exact: true }).click();
+    await expect.poll(() => chart.locator('svg title').textContent(), { timeout: 10_000 }).toContain('size M');
+    await expect.poll(() => chart.locator('g[data-round="6"]').count()).toBe(120);
+    expect(await chart.locator('g[data-round="6"][data-yarn="B"]').count()).toBe(0);
+    await replaceEditorLine(page, 11, 'round 6: k to end in B');
+    await expect.poll(() => chart.locator('g[data-round="6"][data-yarn="B"]').count(), { timeout: 10_000 }).toBe(120);
+    await shot(page, '03b-chart');
+    // Clicking a stitch of round 6 moves the editor to its line.
+    await chart.locator('g[data-round="6"]').first().click();
+    expect(await page.locator('.cm-activeLine').textContent()).toContain('round 6: k to end in B');
+
     await page.keyboard.press('Control+s');
     const dialog = page.getByRole('dialog', { name: 'Save a revision' });
     await dialog.getByLabel('What changed?').fill('Note on the even increases');

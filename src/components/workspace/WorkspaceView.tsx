@@ -18,6 +18,7 @@ import { useCompiler } from '../../editor/useCompiler';
 import type { QuickFix } from '../../editor/quick-fix';
 import { Notice } from '../Notice';
 import { relativeTime } from '../format';
+import { ChartPane, type ChartSettings } from './ChartPane';
 import { CountsPane } from './CountsPane';
 import { HelpOverlay } from './HelpOverlay';
 import { PaneTabs, type PaneTab } from './PaneTabs';
@@ -28,7 +29,7 @@ import { useWorkspaceKeys } from './useWorkspaceKeys';
 import { WorkspaceHeader } from './WorkspaceHeader';
 import { writeSetAside } from './drafts';
 
-type PaneKey = 'counts' | 'problems';
+type PaneKey = 'counts' | 'problems' | 'chart';
 
 // Loaded only when a save meets a newer revision (it brings the text-diff library).
 const ConflictDialog = lazy(() => import('./ConflictDialog').then((m) => ({ default: m.ConflictDialog })));
@@ -56,6 +57,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
   const [setAside, setSetAside] = useState<string | null>(null);
   const [toast, setToast] = useState<string | null>(null);
   const [showRestored, setShowRestored] = useState(session.restored !== null);
+  const [chartSettings, setChartSettings] = useState<ChartSettings>({ size: null, side: 'front', cell: 16 });
   const canEdit = !pattern.myRole || pattern.myRole === 'owner';
 
   const view = compiler.view;
@@ -69,7 +71,11 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     return () => clearTimeout(t);
   }, [toast]);
 
-  const { update } = compiler;
+  const { update, setViews } = compiler;
+  // The worker draws the chart only while its pane is showing.
+  useEffect(() => {
+    setViews({ chart: pane === 'chart' ? chartSettings : null });
+  }, [pane, chartSettings, setViews]);
   const { onDocChange } = session;
   const handleDocChange = useCallback((doc: string) => { onDocChange(doc); update(doc); }, [onDocChange, update]);
   const initialDoc = session.initialDoc;
@@ -78,6 +84,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     if (h) update(initialDoc, true);
   }, [update, initialDoc]);
   const jump = useCallback((span: Span) => editor.current?.jumpTo(span.from, span.to), []);
+  const jumpRange = useCallback((from: number, to: number) => editor.current?.jumpTo(from, to), []);
   const applyFix = useCallback((fix: QuickFix) => {
     const h = editor.current;
     if (!h || h.view.state.doc.toString() !== view?.source) return; // offsets refer to the compiled text
@@ -127,6 +134,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
         </span>
       ) : undefined,
     },
+    { key: 'chart', label: 'Chart', shortcut: 'Alt+3' },
   ];
 
   useWorkspaceKeys({
@@ -209,6 +217,11 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
           <div role="tabpanel" id={`ws-panel-${pane}`} aria-labelledby={`ws-tab-${pane}`} className="min-h-0 flex-1">
             {pane === 'counts' && <CountsPane view={view} cursorLine={cursorLine} onJump={jump} />}
             {pane === 'problems' && <ProblemsPane view={view} stale={compiler.pending} onJump={jump} onFix={applyFix} />}
+            {pane === 'chart' && (
+              <ChartPane chart={compiler.chart} sizes={view?.sizes.map((s) => s.name) ?? []} settings={chartSettings} onSettings={setChartSettings}
+                stale={compiler.pending || (compiler.chart !== null && view !== null && compiler.chart.id !== view.id)}
+                cursorLine={cursorLine} onJump={jumpRange} word={view?.header.construction === 'flat' ? 'Row' : 'Round'} />
+            )}
           </div>
         </section>
       </div>
