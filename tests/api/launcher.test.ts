@@ -12,7 +12,7 @@ import os from 'node:os';
 import path from 'node:path';
 import mariadb from 'mariadb';
 import { afterAll, describe, expect, it } from 'vitest';
-import { instancePaths, startPrivateMariaDB, type PrivateMariaDB } from '../../server/db/launcher.ts';
+import { findRunningInstance, instancePaths, startPrivateMariaDB, type PrivateMariaDB } from '../../server/db/launcher.ts';
 
 const baseDir = path.join(process.env.LOOPWRIGHT_DATA_DIR ?? path.join(os.tmpdir(), 'loopwright'), 'launcher');
 const name = 'lt';
@@ -65,12 +65,14 @@ describe('private MariaDB launcher', () => {
 
   it('refuses a second start on the same data directory while one runs', async () => {
     const db = await start(await freePort());
+    expect(findRunningInstance(name, baseDir)?.ownerPid).toBe(process.pid);
     await expect(startPrivateMariaDB({ name, port: await freePort(), baseDir })).rejects.toThrow(/already running/);
     // The first one is unharmed.
     const conn = await mariadb.createConnection({ host: db.host, port: db.port, user: db.user, password: db.password });
     expect((await conn.query('SELECT 1 AS one'))[0].one).toBe(1);
     await conn.end();
     await stop(db);
+    expect(findRunningInstance(name, baseDir)).toBeNull();
   });
 
   it('cleans up a stale pid file and socket from a killed run', async () => {
