@@ -24,6 +24,7 @@ const users = {} as Record<Exclude<Role, 'anon'>, TestUser>;
 let patternId: number;
 let dummyId: number;
 let uploadId: number;
+let commentId: number;
 
 beforeAll(async () => {
   h = await startHarness();
@@ -46,7 +47,7 @@ beforeAll(async () => {
   const up = await request(h.app).post(`/api/patterns/${patternId}/uploads`).set('Authorization', users.owner.auth).attach('file', pngBytes(), 'swatch.png');
   uploadId = up.body.upload.id;
   const r1 = await Revision.findOne({ where: { patternId, number: 1 } });
-  await Comment.create({ revisionId: r1!.id, authorId: users.owner.id, body: 'Check round 3', round: 3 });
+  commentId = (await Comment.create({ revisionId: r1!.id, authorId: users.owner.id, body: 'Check round 3', round: 3 })).id;
 });
 afterAll(async () => { await h.close(); });
 
@@ -56,7 +57,7 @@ async function setPhase(phase: 'draft' | 'released') {
   await Membership.findOrCreate({ where: { patternId, userId: dummyId }, defaults: { patternId, userId: dummyId, role: 'knitter' } });
 }
 
-const send = (method: 'get' | 'post' | 'delete', url: string, who: Role) => {
+const send = (method: 'get' | 'post' | 'patch' | 'delete', url: string, who: Role) => {
   const req = request(h.app)[method](url);
   return who === 'anon' ? req : req.set('Authorization', users[who].auth);
 };
@@ -114,6 +115,9 @@ const ROWS: Row[] = [
   { name: 'POST /api/patterns/:id/revisions/1/comments', call: (who) => status(send('post', `/api/patterns/${patternId}/revisions/1/comments`, who).send({ body: `note from ${who}`, round: 2 })),
     draft:    [201, 201, 404, 404, 404, 404, 401],
     released: [201, 201, 403, 403, 404, 404, 401] },
+  { name: 'PATCH /api/patterns/:id/comments/:commentId {resolved}', call: (who) => status(send('patch', `/api/patterns/${patternId}/comments/${commentId}`, who).send({ resolved: true })),
+    draft:    [200, 200, 404, 404, 404, 404, 401],
+    released: [200, 200, 403, 403, 404, 404, 401] },
   { name: 'POST /api/patterns/:id/status {in-review}', call: (who) => status(send('post', `/api/patterns/${patternId}/status`, who).send({ status: 'in-review' })),
     draft:    [200, 403, 404, 404, 404, 404, 401],
     released: [200, 403, 403, 403, 404, 404, 401] },

@@ -91,6 +91,16 @@ describe('invitations', () => {
     expect((await invite(designer.email, 'editor')).status).toBe(400);
   });
 
+  it('escapes pattern titles in the HTML part of the mail', async () => {
+    const created = await request(h.app).post('/api/patterns').set('Authorization', designer.auth).send({ title: '<b>Bold</b> & "Co"' });
+    const email = uniqueEmail('escape');
+    await request(h.app).post(`/api/patterns/${created.body.pattern.id}/members`).set('Authorization', designer.auth).send({ email, role: 'editor' });
+    const mail = await h.smtp.waitFor(email);
+    expect(mail.html).toContain('&lt;b&gt;Bold&lt;/b&gt; &amp; &quot;Co&quot;');
+    expect(mail.html).not.toContain('<b>Bold</b>');
+    expect(mail.text).toContain('"<b>Bold</b> & "Co""');
+  });
+
   it('lists the caught mails in GET /api/dev/outbox, newest first, with links', async () => {
     const email = uniqueEmail('outbox');
     await invite(email, 'knitter');
