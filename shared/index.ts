@@ -37,7 +37,7 @@ export interface CompileOptions {
 /** Compiles a source. Deterministic; never throws on user input. */
 export function compile(source: string, options: CompileOptions = {}): CompileResult {
   const parsed = parseSource(source);
-  const checked = checkPattern(parsed.ast, options.size);
+  const checked = checkPattern(parsed.ast, options.size, parsed.diagnostics.some((d) => d.code === 'LW101' || d.code === 'LW102'));
   const diagnostics = sortDiagnostics([...parsed.diagnostics, ...checked.diagnostics]);
   return { ok: !diagnostics.some((d) => d.severity === 'error'), header: checked.header, diagnostics, sizes: checked.sizes };
 }

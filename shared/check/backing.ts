@@ -17,7 +17,7 @@ export function checkBackingClosed(m: Machine, last: RoundRecord | undefined): v
   for (let i = last.offset; i < last.offset + last.count; i++) {
     if (!(store.flags[i] & FLAG.BACKING)) continue;
     const col = m.columns[store.col[i]];
-    if (!col) continue;
+    if (!col || m.reportedColumns.has(store.col[i])) continue;
     const e = bySetup.get(col.src);
     if (e) e.count++; else bySetup.set(col.src, { count: 1, yarn: col.yarn, round: col.round });
   }

@@ -58,8 +58,11 @@ export interface CheckOutput {
 
 const origin: Span = { from: 0, to: 0, line: 1, column: 1, endLine: 1, endColumn: 1 };
 
-/** Checks a parsed pattern; `only` restricts the work to one size (must exist). Never throws on user input. */
-export function checkPattern(ast: PatternAst, only?: string): CheckOutput {
+/**
+ * Checks a parsed pattern; `only` restricts the work to one size (LW208 when
+ * it does not exist); `hadSyntaxErrors` quiets LW209. Never throws on user input.
+ */
+export function checkPattern(ast: PatternAst, only?: string, hadSyntaxErrors = false): CheckOutput {
   const rep = new Reporter();
   const early: Diagnostic[] = [];
   const head = resolveHeader(ast.header, early, origin);
@@ -81,7 +84,7 @@ export function checkPattern(ast: PatternAst, only?: string): CheckOutput {
     const m = new Machine(ctx, sources, charts);
     const castOnCount = ast.castOn ? ctx.graded(ast.castOn.count) : 0;
     const castOnYarn = ctx.yarn(ast.castOn?.yarn ?? null, 0);
-    const planned = planRounds(ctx, ast, flat);
+    const planned = planRounds(ctx, ast, flat, hadSyntaxErrors);
     let records: RoundRecord[] = [];
     if (castOnCount < 0) ctx.report('LW103', ast.castOn!.count.span, { what: 'a cast-on', need: '0 or more stitches', value: castOnCount });
     if (planned) records = workRounds(m, ast, planned.rounds, planned.ranges, { count: Math.max(0, castOnCount), yarn: castOnYarn, src: 0 }, flat);

@@ -48,7 +48,13 @@ export class Machine {
   inCol: Int32Array = new Int32Array(0);
   inLen = 0;
   hasManaged = false;
+  hasBacking = false;
   private prefix: Int32Array | null = null;
+  private frontPrefix: Int32Array | null = null;
+  /** Where a hand-placed backing stitch was knitted into the fabric (LW401): key side:frontIndex. */
+  readonly merged = new Set<string>();
+  /** Columns already reported as unclosable (LW403), left out of LW404. */
+  readonly reportedColumns = new Set<number>();
   pos = 0;
   end = 0;
   outStart = 0;
@@ -89,8 +95,12 @@ export class Machine {
   load(flags: Uint8Array, yarn: Uint8Array, col: Int32Array, markers: MarkerPos[], segs: SegmentRange[]): void {
     this.inFlags = flags; this.inYarn = yarn; this.inCol = col; this.inLen = flags.length;
     this.hasManaged = false;
-    for (let i = 0; i < flags.length; i++) if (flags[i] & FLAG.MANAGED) { this.hasManaged = true; break; }
+    this.hasBacking = false;
+    for (let i = 0; i < flags.length; i++) {
+      if (flags[i] & FLAG.BACKING) { this.hasBacking = true; if (flags[i] & FLAG.MANAGED) { this.hasManaged = true; break; } }
+    }
     this.prefix = null;
+    this.frontPrefix = null;
     this.markersIn = markers; this.mi = 0; this.markersOut = [];
     this.segs = segs; this.si = 0;
     this.pos = 0; this.end = this.inLen;
@@ -100,16 +110,32 @@ export class Machine {
     this.computeNextEvent();
   }
 
-  /** Stitches in [from, to) the operations count (all but ladder-managed backing stitches). */
+  /** Stitches in [from, to) the operations must work (all but ladder-managed backing stitches): the LW301 count. */
   countable(from: number, to: number): number {
     if (to <= from) return 0;
     if (!this.hasManaged) return to - from;
-    if (!this.prefix) {
-      const p = new Int32Array(this.inLen + 1);
-      for (let i = 0; i < this.inLen; i++) p[i + 1] = p[i] + ((this.inFlags[i] & FLAG.MANAGED) ? 0 : 1);
-      this.prefix = p;
+    if (!this.prefix) this.buildPrefixes();
+    return this.prefix![to] - this.prefix![from];
+  }
+
+  /** Front stitches in [from, to): what "to end", "to marker" and charts count. */
+  fronts(from: number, to: number): number {
+    if (to <= from) return 0;
+    if (!this.hasBacking) return to - from;
+    if (!this.frontPrefix) this.buildPrefixes();
+    return this.frontPrefix![to] - this.frontPrefix![from];
+  }
+
+  private buildPrefixes(): void {
+    const p = new Int32Array(this.inLen + 1);
+    const q = new Int32Array(this.inLen + 1);
+    for (let i = 0; i < this.inLen; i++) {
+      const f = this.inFlags[i];
+      p[i + 1] = p[i] + ((f & FLAG.MANAGED) ? 0 : 1);
+      q[i + 1] = q[i] + ((f & FLAG.BACKING) ? 0 : 1);
     }
-    return this.prefix[to] - this.prefix[from];
+    this.prefix = p;
+    this.frontPrefix = q;
   }
 
   /** The segment the cursor is in. */
@@ -182,9 +208,10 @@ export class Machine {
   }
 
   /**
-   * Takes the next front stitch of the scope and returns its index, or -1
-   * when the scope is used up. Backing stitches met on the way are worked:
-   * a ladder's automatically, a hand-placed one with LW401.
+   * Takes the next stitch of the scope for a front operation and returns its
+   * index, or -1 when the scope is used up. A ladder's backing stitches met on
+   * the way are worked automatically; a hand-placed one is knitted into the
+   * fabric like a front stitch, which is LW401.
    */
   takeFront(src: number, what: string): number {
     while (this.pos < this.end) {
@@ -193,12 +220,11 @@ export class Machine {
       const f = this.inFlags[i];
       this.pos++;
       if ((f & FLAG.BACKING) === 0) return i;
-      if (f & FLAG.MANAGED) this.autoBacking(i);
-      else {
-        this.problem = true;
-        this.ctx.report('LW401', this.sources.spans[src], { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] }, `c${this.inCol[i]}`);
-        this.putBacking(OP.carry, this.inYarn[i], src, f, this.inCol[i]);
-      }
+      if (f & FLAG.MANAGED) { this.autoBacking(i); continue; }
+      this.problem = true;
+      this.merged.add(`${this.side}:${this.front}`);
+      this.ctx.report('LW401', this.sources.spans[src], { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] }, `c${this.inCol[i]}`);
+      return i;
     }
     return -1;
   }
@@ -216,6 +242,7 @@ export class Machine {
     const i = this.pendingClose;
     this.pendingClose = -1;
     const span = this.lineSpan ?? this.sources.spans[0];
+    this.reportedColumns.add(this.inCol[i]);
     this.ctx.report('LW403', span, { word: this.word, round: this.roundNo, detail: 'a ladder column has no front stitch after it to close with' }, `u${this.inCol[i]}`);
     this.putBacking(OP.carry, this.inYarn[i], this.ladder?.src ?? 0, this.inFlags[i], this.inCol[i]);
   }

@@ -58,7 +58,7 @@ function target(m: Machine, to: ToSpec, span: Span): number {
 function available(m: Machine, to: ToSpec, span: Span): number {
   const t = target(m, to, span);
   if (t < 0) return -1;
-  let n = m.countable(m.pos, t);
+  let n = m.fronts(m.pos, t);
   if (to.kind === 'last') {
     const keep = m.ctx.graded(to.n);
     if (keep > n) {
@@ -71,7 +71,7 @@ function available(m: Machine, to: ToSpec, span: Span): number {
   return n;
 }
 
-/** Stitches one pass of `ops` takes, or null when it depends on the needle ("to end" inside). */
+/** Front stitches one pass of `ops` takes, or null when it depends on the needle ("to end" inside). */
 export function consumption(m: Machine, ops: readonly Op[]): number | null {
   let total = 0;
   for (const op of ops) {
@@ -92,8 +92,7 @@ export function consumption(m: Machine, ops: readonly Op[]): number | null {
         total += row ? row.consumes : 0;
         break;
       }
-      case 'carry': total += op.count ? m.ctx.graded(op.count) : 1; break;
-      case 'close': total += 2; break;
+      case 'close': total += 1; break; // the front neighbour
       case 'cable': total += op.held + op.worked; break;
       default: break;
     }
@@ -193,8 +192,9 @@ function execOp(m: Machine, op: Op, yarn: number): void {
     }
     case 'chart': {
       const row = chartRow(m, op, true);
-      if (!row || row.consumes === 0) return;
-      const n = m.countable(m.pos, m.end);
+      if (!row) { m.problem = true; return; }
+      if (row.consumes === 0) return;
+      const n = m.fronts(m.pos, m.end);
       const chart = m.charts.get(op.chart.name)!;
       const rowNo = chart.rows.indexOf(row) + 1;
       if (n < row.consumes) {
@@ -300,6 +300,7 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
     m.missing += 1;
     m.problem = true;
     if (backA) {
+      m.reportedColumns.add(m.inCol[a]);
       m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'the backing stitch is the last stitch here, with no front neighbour to close with' });
       m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
     } else {
@@ -311,6 +312,8 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
   }
   m.pos = b + 1;
   if (backA && backB) {
+    m.reportedColumns.add(m.inCol[a]);
+    m.reportedColumns.add(m.inCol[b]);
     m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'two backing stitches side by side: close needs a front stitch as neighbour' });
     m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
     m.putBacking(OP.carry, m.inYarn[b], src, fb, m.inCol[b]);
@@ -320,7 +323,9 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
   const key = `${m.side}:${m.front}`;
   if (!backA && !backB) {
     const before = m.closed.get(key);
-    if (before) {
+    if (m.merged.has(key)) {
+      // Already reported: the backing stitch here was knitted into the fabric (LW401).
+    } else if (before) {
       m.ctx.report('LW402', span, { ...sizeFacts(m), closedIn: before.round }, '', [{ span: before.span, message: `closed here in ${m.word} ${before.round}` }]);
     } else {
       m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no backing stitch here to close; the two stitches are worked together as a decrease' });

@@ -4,7 +4,9 @@
  * Rounds are worked from 1 to the highest round any line names. For each
  * round, the last whole-round line that covers it wins; lines with
  * "at SEGMENT" are collected per segment (again the last one wins). A round
- * with both kinds is LW211; a round with neither is LW209. Ladder lines are
+ * with both kinds is LW211 (the whole-round line is worked); a round with
+ * neither is LW209 (not reported when the text had syntax errors: the
+ * missing round is most likely the line that could not be read). Ladder lines are
  * attached to the rounds they set up (first), work and close (last).
  */
 import type { LadderLine, PatternAst, RoundLine } from '../notation';
@@ -40,7 +42,7 @@ export function lineRange(ctx: SizeContext, line: RoundLine): LineRange | null {
  * Builds the round plan for one size; returns null (after LW901) when the
  * highest round number is past the bound.
  */
-export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean): { rounds: PlannedRound[]; ranges: Map<RoundLine, LineRange> } | null {
+export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, quietGaps = false): { rounds: PlannedRound[]; ranges: Map<RoundLine, LineRange> } | null {
   const ranges = new Map<RoundLine, LineRange>();
   let max = 0;
   for (const line of ast.rounds) {
@@ -71,13 +73,13 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean): { 
   const rounds: PlannedRound[] = [];
   for (let n = 1; n <= max; n++) {
     const side = flat && n % 2 === 0 ? 'WS' : 'RS';
-    let w = whole[n] >= 0 ? ast.rounds[whole[n]] : null;
+    const w = whole[n] >= 0 ? ast.rounds[whole[n]] : null;
     if (w && segs[n].size) {
+      // The whole-round line is worked; the segment lines are ignored for this round.
       const [segName, segLine] = [...segs[n]][0];
       ctx.reporter.report('LW211', segLine.headSpan, { word: wordOf, round: n, segment: segName }, ctx.sizeLabel, String(n));
-      w = null;
     }
-    if (!w && segs[n].size === 0) {
+    if (!w && segs[n].size === 0 && !quietGaps) {
       const near = ast.rounds.find((l) => (ranges.get(l)?.first ?? 0) > n) ?? ast.rounds[ast.rounds.length - 1];
       ctx.report('LW209', near.headSpan, { word: wordOf, round: n, last: max }, String(n));
     }

@@ -115,8 +115,9 @@ export function workRounds(
       worked = m.worked;
     } else {
       const names = new Set(segs.map((s) => s.name));
+      let misnamed = false;
       for (const [name, line] of p.segments) {
-        if (!names.has(name)) ctx.report('LW204', line.segment!.span, { round: p.number, name, known: [...names].join(', ') });
+        if (!names.has(name)) { misnamed = true; ctx.report('LW204', line.segment!.span, { round: p.number, name, known: [...names].join(', ') }); }
       }
       for (let si = 0; si < segs.length && !m.aborted; si++) {
         const seg = segs[si];
@@ -127,11 +128,11 @@ export function workRounds(
         if (line) {
           workLine(m, line, ranges, defaultYarn);
           lines.push(m.sources.of(line));
-        } else if (seg.to > seg.from) {
+        } else if (seg.to > seg.from && !misnamed) {
           const first = [...p.segments.values()][0];
           ctx.report('LW305', first.headSpan, { word: m.word, round: p.number, segment: seg.name, stitches: onNeedle }, `${p.number}:${seg.name}`);
-          m.problem = true;
         }
+        if (!line) m.problem = true; // LW305 (or LW204) already says why
         finishScope(m, onNeedle, line?.span ?? span);
         worked += m.worked;
       }
