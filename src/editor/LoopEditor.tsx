@@ -8,11 +8,11 @@
  */
 import { useEffect, useRef } from 'react';
 import { Compartment, EditorState, type Extension } from '@codemirror/state';
+import { EditorView, highlightActiveLine, highlightActiveLineGutter, keymap, lineNumbers } from '@codemirror/view';
 import {
-  drawSelection, EditorView, highlightActiveLine, highlightActiveLineGutter, highlightSpecialChars, keymap, lineNumbers,
-} from '@codemirror/view';
-import { defaultKeymap, history, historyKeymap, indentWithTab } from '@codemirror/commands';
-import { completionKeymap, closeBrackets, closeBracketsKeymap } from '@codemirror/autocomplete';
+  copyLineDown, copyLineUp, deleteLine, history, historyKeymap, indentLess, indentMore, indentWithTab, moveLineDown, moveLineUp, selectLine, standardKeymap,
+} from '@codemirror/commands';
+import { completionKeymap } from '@codemirror/autocomplete';
 import '@fontsource/jetbrains-mono/latin-400.css';
 import { compiledField } from './compile-state';
 import { loopCompletion } from './completion';
@@ -46,16 +46,17 @@ export interface LoopEditorProps {
   readOnly?: boolean;
 }
 
-/** The language and editing extensions of a Loopwright editor, without React glue. */
+/**
+ * The language and editing extensions of a Loopwright editor, without React
+ * glue. Deliberately lean (native selection drawing, no bracket closing):
+ * every kilobyte here is downloaded before a pattern opens.
+ */
 export function loopExtensions(): Extension[] {
   return [
     lineNumbers(),
     loopLint(),
     highlightActiveLineGutter(),
-    highlightSpecialChars(),
     history(),
-    drawSelection(),
-    closeBrackets(),
     highlightActiveLine(),
     // Long rounds wrap rather than scroll sideways in a half-width editor.
     EditorView.lineWrapping,
@@ -82,6 +83,21 @@ async function openSearch(view: EditorView): Promise<void> {
   m.openSearchPanel(view);
 }
 
+/**
+ * Line commands on top of the standard keys (the full default keymap also
+ * binds bracket and syntax-tree commands that a pattern source has no use for).
+ */
+const lineKeys = [
+  { key: 'Alt-ArrowUp', run: moveLineUp },
+  { key: 'Alt-ArrowDown', run: moveLineDown },
+  { key: 'Shift-Alt-ArrowUp', run: copyLineUp },
+  { key: 'Shift-Alt-ArrowDown', run: copyLineDown },
+  { key: 'Shift-Mod-k', run: deleteLine },
+  { key: 'Mod-l', run: selectLine, preventDefault: true },
+  { key: 'Mod-[', run: indentLess },
+  { key: 'Mod-]', run: indentMore },
+];
+
 export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSave, onReady, extraKeys, readOnly = false }: LoopEditorProps) {
   const host = useRef<HTMLDivElement>(null);
   // Latest callbacks, read by the long-lived editor without rebuilding it.
@@ -105,7 +121,7 @@ export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSa
           extraKeys ?? [],
           EditorState.readOnly.of(readOnly),
           searchSlot.of([]),
-          keymap.of([...closeBracketsKeymap, ...defaultKeymap, ...historyKeymap, ...completionKeymap, indentWithTab]),
+          keymap.of([...standardKeymap, ...lineKeys, ...historyKeymap, ...completionKeymap, indentWithTab]),
           loopExtensions(),
           EditorView.contentAttributes.of({ 'aria-label': 'Pattern source', spellcheck: 'false', autocapitalize: 'off', autocorrect: 'off' }),
           EditorView.updateListener.of((u) => {

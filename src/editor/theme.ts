@@ -10,9 +10,9 @@ export const loopTheme = EditorView.theme(
     '&': { height: '100%', fontSize: '13.5px', backgroundColor: '#ffffff', color: '#1f2629' },
     '.cm-scroller': { fontFamily: '"JetBrains Mono", ui-monospace, monospace', lineHeight: '1.6' },
     '.cm-content': { padding: '10px 0', caretColor: '#56437b' },
-    '.cm-cursor, .cm-dropCursor': { borderLeftColor: '#56437b', borderLeftWidth: '2px' },
-    '&.cm-focused': { outline: 'none' },
-    '&.cm-focused .cm-selectionBackground, .cm-selectionBackground, ::selection': { backgroundColor: '#d8cfeb !important' },
+    // Keyboard focus stays visible: a ring inside the editor's edge.
+    '&.cm-focused': { outline: '2px solid #6a5397', outlineOffset: '-2px' },
+    '.cm-content ::selection': { backgroundColor: '#d8cfeb' },
     '.cm-activeLine': { backgroundColor: '#f6f4fa' },
     '.cm-gutters': { backgroundColor: '#f4f6f7', color: '#56636b', borderRight: '1px solid #d1d8dc' },
     '.cm-activeLineGutter': { backgroundColor: '#ece7f5', color: '#2d2441' },
