@@ -80,12 +80,17 @@ export function instancePaths(name: string, baseDir = path.join(repoRoot, '.data
 
 const isRoot = () => typeof process.getuid === 'function' && process.getuid() === 0;
 
-/** Makes sure Debian's mariadb-server binaries exist, installing them when running as root. */
-export function ensureMariaDBInstalled(): void {
-  if (existsSync(MARIADBD) && existsSync(INSTALL_DB)) return;
+/**
+ * Makes sure Debian's mariadb-server binaries exist, installing them with
+ * apt-get when running as root; otherwise throws with the exact command.
+ * `binaries` and `asRoot` exist for tests.
+ */
+export function ensureMariaDBInstalled(binaries: readonly string[] = [MARIADBD, INSTALL_DB], asRoot: boolean = isRoot()): void {
+  const missing = binaries.filter((b) => !existsSync(b));
+  if (missing.length === 0) return;
   const command = 'apt-get update && apt-get install -y mariadb-server';
-  if (!isRoot()) {
-    throw new LauncherError(`MariaDB is not installed (${MARIADBD} is missing). Install it with:\n  sudo sh -c '${command}'`);
+  if (!asRoot) {
+    throw new LauncherError(`MariaDB is not installed (${missing.join(', ')} missing). Install it with:\n  sudo sh -c '${command}'`);
   }
   console.log(`MariaDB is missing; running: ${command}`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
@@ -94,7 +99,8 @@ export function ensureMariaDBInstalled(): void {
     if (r.status !== 0) throw new LauncherError(`apt-get ${args.join(' ')} failed (exit ${r.status}); run it by hand: ${command}`);
   }
   // Debian starts the system-wide service after install; we do not use it, but leave it alone.
-  if (!existsSync(MARIADBD)) throw new LauncherError(`${MARIADBD} still missing after installing mariadb-server`);
+  const still = binaries.filter((b) => !existsSync(b));
+  if (still.length) throw new LauncherError(`${still.join(', ')} still missing after installing mariadb-server`);
 }
 
 /** True when a process with this pid exists and is a mariadbd. */

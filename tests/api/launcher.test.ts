@@ -12,7 +12,7 @@ import os from 'node:os';
 import path from 'node:path';
 import mariadb from 'mariadb';
 import { afterAll, describe, expect, it } from 'vitest';
-import { findRunningInstance, instancePaths, startPrivateMariaDB, type PrivateMariaDB } from '../../server/db/launcher.ts';
+import { ensureMariaDBInstalled, findRunningInstance, instancePaths, startPrivateMariaDB, type PrivateMariaDB } from '../../server/db/launcher.ts';
 
 const baseDir = path.join(process.env.LOOPWRIGHT_DATA_DIR ?? path.join(os.tmpdir(), 'loopwright'), 'launcher');
 const name = 'lt';
@@ -96,6 +96,12 @@ describe('private MariaDB launcher', () => {
     expect(serverPid()).not.toBe(orphan);
     await stop(db); // a no-op now: its server is already gone
     await stop(fresh);
+  });
+
+  it('without the binaries and without root, fails with the exact apt-get command', () => {
+    expect(() => ensureMariaDBInstalled(['/nonexistent/mariadbd'], false)).toThrow(/missing\)\. Install it with:\n {2}sudo sh -c 'apt-get update && apt-get install -y mariadb-server'/);
+    // With the real binaries present nothing happens.
+    expect(() => ensureMariaDBInstalled()).not.toThrow();
   });
 
   it('refuses a port that another program uses', async () => {
