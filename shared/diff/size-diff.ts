@@ -98,7 +98,8 @@ export function diffSize(name: string, a: SizeView, b: SizeView, pairing: RoundP
   }
   return {
     size: name,
-    word: b.word,
+    // Symmetric in the two revisions: rows when either is worked flat.
+    word: a.flat || b.flat ? 'row' : 'round',
     castOn: a.model.castOn !== b.model.castOn ? { old: a.model.castOn, new: b.model.castOn } : null,
     rounds, renumbered, unchanged, cells, cellsTotal,
     columns: diffColumns(a, b, pairing),

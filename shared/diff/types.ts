@@ -86,7 +86,7 @@ export interface RenumberedRun { old: { first: number; last: number }; new: { fi
 /** Everything that differs in one size present in both revisions. */
 export interface SizeDiff {
   size: string;
-  /** 'row' for flat work (in the new revision), 'round' otherwise. */
+  /** 'row' when either revision is worked flat, 'round' otherwise. */
   word: 'round' | 'row';
   castOn: Change<number> | null;
   /** Added, removed and changed rounds, in working order. */
