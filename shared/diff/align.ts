@@ -20,13 +20,28 @@ export const MAX_LCS_CELLS = 4_000_000;
 
 const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 
+/** Interns keys as small integers (one table for both sides, so equal keys get equal ids). */
+function intern(table: Map<string, number>, keys: readonly string[], from: number, to: number): Int32Array {
+  const out = new Int32Array(to - from);
+  for (let k = from; k < to; k++) {
+    let id = table.get(keys[k]);
+    if (id === undefined) { id = table.size; table.set(keys[k], id); }
+    out[k - from] = id;
+  }
+  return out;
+}
+
 /** Weighted LCS of a[i, ie) and b[j, je) (both non-empty); steps in order. */
 function weighted(a: RoundKeys, b: RoundKeys, i: number, ie: number, j: number, je: number): Step[] {
   const n = ie - i, m = je - j, w = m + 1;
+  // Ids only test equality; ties below compare the keys themselves, so id order never matters.
+  const shapes = new Map<string, number>(), exacts = new Map<string, number>();
+  const sa = intern(shapes, a.shape, i, ie), sb = intern(shapes, b.shape, j, je);
+  const ea = intern(exacts, a.exact, i, ie), eb = intern(exacts, b.exact, j, je);
   // A pair of equal shape scores `pair`; an identical pair one more. `pair` exceeds
   // the most identical bonuses possible, so more pairs always win over more identical ones.
   const pair = Math.min(n, m) + 1;
-  const score = (x: number, y: number) => (a.shape[i + x] !== b.shape[j + y] ? -1 : pair + (a.exact[i + x] === b.exact[j + y] ? 1 : 0));
+  const score = (x: number, y: number) => (sa[x] !== sb[y] ? -1 : pair + (ea[x] === eb[y] ? 1 : 0));
   const dp = new Int32Array((n + 1) * w); // dp[x*w+y]: best score of a[i+x, ie) with b[j+y, je)
   for (let x = n - 1; x >= 0; x--) {
     for (let y = m - 1; y >= 0; y--) {

@@ -32,6 +32,9 @@ class Hasher {
   key(): string { return `${(this.a >>> 0).toString(36)}.${(this.b >>> 0).toString(36)}`; }
 }
 
+/** Front stitches of a round as numbers (see {@link SizeView.fronts}). */
+export interface Fronts { op: Int32Array; yarn: Int32Array; view: SizeView }
+
 /** One size of one revision, prepared for diffing. */
 export class SizeView {
   readonly flat: boolean;
@@ -86,18 +89,27 @@ export class SizeView {
     return { exact, shape };
   }
 
-  /** The front stitches of round r in right-side order: parallel arrays of op name and yarn name. */
-  fronts(r: number): { op: string[]; yarn: string[] } {
-    const { store, rounds, ops, yarns } = this.model.stitches;
-    const op: string[] = [], yarn: string[] = [];
-    for (let k = 0; k < rounds[r].count; k++) {
+  /**
+   * The front stitches of round r in right-side order, as numbers: the
+   * stitch-table code and the yarn's id in `yarnIds` (a table both views of
+   * a diff share), so comparing two rounds compares numbers, not names.
+   */
+  fronts(r: number, yarnIds: ReadonlyMap<string, number>): Fronts {
+    const { store, rounds, yarns } = this.model.stitches;
+    const rec = rounds[r];
+    const ids = yarns.map((y) => yarnIds.get(y) ?? -1);
+    const op = new Int32Array(rec.front), yarn = new Int32Array(rec.front);
+    let n = 0;
+    for (let k = 0; k < rec.count && n < rec.front; k++) {
       const i = this.at(r, k);
       if (store.flags[i] & FLAG_BACKING) continue;
-      op.push(ops[store.op[i]]?.name ?? `#${store.op[i]}`);
-      yarn.push(yarns[store.yarn[i]] ?? '');
+      op[n] = store.op[i]; yarn[n] = ids[store.yarn[i]] ?? -1; n++;
     }
-    return { op, yarn };
+    return { op: op.subarray(0, n), yarn: yarn.subarray(0, n), view: this };
   }
+
+  /** The name of a stitch-table code. */
+  opName(code: number): string { return this.model.stitches.ops[code]?.name ?? `#${code}`; }
 
   /** The backing stitches of round r in right-side order, each as "front stitches before it|op|yarn". */
   backings(r: number): string[] {

@@ -5,7 +5,7 @@
  */
 import { alignRounds, type Step } from './align';
 import { diffColumns } from './columns';
-import type { SizeView } from './round-view';
+import type { Fronts, SizeView } from './round-view';
 import type { CellChange, RenumberedRun, RoundAspect, RoundChange, SizeDiff } from './types';
 
 /** Round pairing of one size, kept for the diagnostics diff and columns. */
@@ -34,12 +34,12 @@ export function pairRounds(a: SizeView, b: SizeView): RoundPairing {
 const sameList = (x: readonly string[], y: readonly string[]) => x.length === y.length && x.every((v, i) => v === y[i]);
 
 /** Compares a pair of rounds; pushes changed cells (up to `room`) and returns the aspects and the number of changed cells. */
-function compareRounds(a: SizeView, r: number, b: SizeView, s: number, cells: CellChange[], room: number): { aspects: RoundAspect[]; cellsChanged: number } {
+function compareRounds(a: SizeView, r: number, b: SizeView, s: number, yarns: YarnTable, cells: CellChange[], room: number): { aspects: RoundAspect[]; cellsChanged: number } {
   const sa = a.model.rounds[r], sb = b.model.rounds[s];
   const ra = a.model.stitches.rounds[r], rb = b.model.stitches.rounds[s];
   const aspects: RoundAspect[] = [];
   if (sa.front !== sb.front || sa.backing !== sb.backing || sa.total !== sb.total) aspects.push('counts');
-  const fa = a.fronts(r), fb = b.fronts(s);
+  const fa = a.fronts(r, yarns.ids), fb = b.fronts(s, yarns.ids);
   const na = fa.op.length, nb = fb.op.length;
   // Trim the common prefix and suffix, pair the middle by position, and count the longer side's extra cells.
   let p = 0;
@@ -48,7 +48,7 @@ function compareRounds(a: SizeView, r: number, b: SizeView, s: number, cells: Ce
   while (q < na - p && q < nb - p && fa.op[na - 1 - q] === fb.op[nb - 1 - q] && fa.yarn[na - 1 - q] === fb.yarn[nb - 1 - q]) q++;
   const ma = na - p - q, mb = nb - p - q;
   let changed = 0;
-  const cell = (f: { op: string[]; yarn: string[] }, k: number) => ({ stitch: k + 1, op: f.op[k], yarn: f.yarn[k] });
+  const cell = (f: Fronts, k: number) => ({ stitch: k + 1, op: f.view.opName(f.op[k]), yarn: yarns.names[f.yarn[k]] ?? '' });
   for (let k = 0; k < Math.max(ma, mb); k++) {
     const x = p + k;
     if (k < ma && k < mb && fa.op[x] === fb.op[x] && fa.yarn[x] === fb.yarn[x]) continue;
@@ -66,8 +66,17 @@ function compareRounds(a: SizeView, r: number, b: SizeView, s: number, cells: Ce
   return { aspects, cellsChanged: changed };
 }
 
+/** Yarn names of both revisions, sorted (so ids do not depend on which revision is old), and their ids. */
+interface YarnTable { names: string[]; ids: Map<string, number> }
+
+function yarnTable(a: SizeView, b: SizeView): YarnTable {
+  const names = [...new Set([...a.model.stitches.yarns, ...b.model.stitches.yarns])].sort();
+  return { names, ids: new Map(names.map((y, i) => [y, i])) };
+}
+
 /** Diffs one size present in both revisions. `maxCells` bounds the listed cells. */
 export function diffSize(name: string, a: SizeView, b: SizeView, pairing: RoundPairing, maxCells: number): SizeDiff {
+  const yarns = yarnTable(a, b);
   const rounds: RoundChange[] = [];
   const renumbered: RenumberedRun[] = [];
   const cells: CellChange[] = [];
@@ -76,7 +85,7 @@ export function diffSize(name: string, a: SizeView, b: SizeView, pairing: RoundP
   let run: RenumberedRun | null = null;
   for (const st of pairing.steps) {
     if (st.o >= 0 && st.n >= 0) {
-      const { aspects, cellsChanged } = compareRounds(a, st.o, b, st.n, cells, maxCells);
+      const { aspects, cellsChanged } = compareRounds(a, st.o, b, st.n, yarns, cells, maxCells);
       cellsTotal += cellsChanged;
       if (aspects.length > 0) {
         rounds.push({ kind: 'changed', old: a.state(st.o), new: b.state(st.n), aspects, cellsChanged });
