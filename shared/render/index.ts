@@ -18,3 +18,6 @@ export { escapeXml } from './svg';
 export { writeInstructions, formatInstructionsText, formatCounts } from './instructions';
 export type { InstructionEntry, Instructions, StitchCounts } from './instructions';
 export type { KeyEntry } from './phrases';
+export { summarize } from './summary';
+export type { FloatReportEntry, PatternSummary, SizeSummary, SummaryOptions } from './summary';
+export { formatSummaryText } from './summary-text';
