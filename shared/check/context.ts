@@ -14,8 +14,8 @@ export const LIMITS = {
   stitchesPerSize: 2_000_000,
   /** Highest round number. */
   rounds: 100_000,
-  /** Operation steps per size (guards repeats of zero-stitch operations). */
-  steps: 8_000_000,
+  /** Repeat passes that work no stitch, per size (guards repeats of zero-stitch operations). */
+  steps: 2_000_000,
   /** Diagnostics per code per size before LW902. */
   perCode: 50,
 } as const;

@@ -196,9 +196,9 @@ export class Machine {
     return true;
   }
 
-  /** Counts operation steps; false (after LW901) past the bound. */
+  /** Counts a repeat pass that worked no stitch; false (after LW901) past the bound. */
   step(span: Span): boolean {
-    if (++this.steps > LIMITS.steps) { this.abort(span, `more than ${LIMITS.steps.toLocaleString('en')} operation steps`); return false; }
+    if (++this.steps > LIMITS.steps) { this.abort(span, `more than ${LIMITS.steps.toLocaleString('en')} repeat passes that work no stitch`); return false; }
     return !this.aborted;
   }
 

@@ -130,10 +130,10 @@ function workChartRow(m: Machine, row: ChartRow, yarn: number): void {
 
 /** Works an operation list over the current scope. */
 export function execOps(m: Machine, ops: readonly Op[], yarn: number): void {
-  for (const op of ops) {
+  for (let i = 0; i < ops.length; i++) {
     if (m.aborted) return;
     if (m.pos >= m.nextEvent) m.passEvents();
-    execOp(m, op, yarn);
+    execOp(m, ops[i], yarn);
   }
 }
 
@@ -161,7 +161,6 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       }
       if (reps < 0) return;
       if (!m.room(reps * info.produces, op.span)) return;
-      if (!m.step(op.span)) return;
       for (let r = 0; r < reps; r++) workStitch(m, info, y, src, 0);
       return;
     }
@@ -185,8 +184,11 @@ function execOp(m: Machine, op: Op, yarn: number): void {
         }
       }
       for (let r = 0; r < reps; r++) {
-        if (!m.step(op.span)) return;
+        const pos = m.pos, out = m.store.length;
         execOps(m, op.ops, y);
+        // Only passes that take and give nothing count against the step bound (they cannot run away otherwise).
+        if (m.pos === pos && m.store.length === out && !m.step(op.span)) return;
+        if (m.aborted) return;
       }
       return;
     }
@@ -236,10 +238,13 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       } else m.ctx.report('LW205', op.name.span, { round: m.roundNo, name: op.name.name, known });
       return;
     }
-    case 'catch':
-      m.catchYarn.push(m.ctx.yarn(op.yarn, yarn));
-      m.catchAt.push(m.front);
+    case 'catch': {
+      const y = m.ctx.yarn(op.yarn, yarn);
+      const k = m.catchAt.length - 1;
+      // A second catch of the same yarn at the same place changes nothing.
+      if (k < 0 || m.catchAt[k] !== m.front || m.catchYarn[k] !== y) { m.catchYarn.push(y); m.catchAt.push(m.front); }
       return;
+    }
     case 'raise':
       if (!m.room(1, op.span)) return;
       m.raise(m.ctx.yarn(op.yarn, yarn), src, 0);
@@ -247,8 +252,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
     case 'carry': {
       const n = op.count ? m.ctx.graded(op.count) : 1;
       for (let r = 0; r < n; r++) {
-        if (!m.step(op.span)) return;
-        if (m.pos >= m.end) { m.worked++; m.missing++; continue; }
+        if (m.pos >= m.end) { m.worked += n - r; m.missing += n - r; break; }
         if (m.pos >= m.nextEvent) m.passEvents();
         const f = m.inFlags[m.pos];
         if (f & FLAG.BACKING) {

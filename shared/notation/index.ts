@@ -19,10 +19,17 @@ export { tokenSpan, joinSpans } from './to-ast';
 /** At most this many lexing and this many parsing diagnostics are listed (then one LW902). */
 export const MAX_SYNTAX_DIAGNOSTICS = 100;
 
-/** A span for a bare offset range within one line of `source` (used where no token exists). */
+/**
+ * A span for a bare offset range within one line of `source` (used where no
+ * token exists). Lines end at \n, \r\n or \r, as for the lexer.
+ */
 export function spanAt(source: string, from: number, to = from): Span {
   let line = 1, lineStart = 0;
-  for (let i = source.indexOf('\n'); i !== -1 && i < from; i = source.indexOf('\n', i + 1)) { line++; lineStart = i + 1; }
+  const breaks = /\r\n?|\n/g;
+  for (let m = breaks.exec(source); m && m.index < from; m = breaks.exec(source)) {
+    if (m.index + m[0].length > from) break;
+    line++; lineStart = m.index + m[0].length;
+  }
   return { from, to, line, column: from - lineStart + 1, endLine: line, endColumn: to - lineStart + 1 };
 }
 
