@@ -108,6 +108,29 @@ export class SizeView {
     return { op: op.subarray(0, n), yarn: yarn.subarray(0, n), view: this };
   }
 
+  /**
+   * True when round r of this view and round s of `other` are identical in
+   * everything the diff compares (stitches with op, yarn and layer in
+   * order, side, note, floats, markers). Allocation-free on the stitches:
+   * the fast path for the many rounds an edit does not touch.
+   */
+  sameRound(r: number, other: SizeView, s: number, yarnIds: ReadonlyMap<string, number>): boolean {
+    const x = this.model.stitches, y = other.model.stitches;
+    const rx = x.rounds[r], ry = y.rounds[s];
+    if (rx.count !== ry.count || rx.side !== ry.side || rx.note !== ry.note) return false;
+    if (rx.floats.length !== ry.floats.length || rx.markers.length !== ry.markers.length) return false;
+    if (rx.markers.some((m, k) => m.name !== ry.markers[k].name || m.at !== ry.markers[k].at)) return false;
+    const fx = this.floats(r), fy = other.floats(s);
+    if (fx.some((f, k) => f !== fy[k])) return false;
+    const ix = x.yarns.map((n) => yarnIds.get(n) ?? -1), iy = y.yarns.map((n) => yarnIds.get(n) ?? -1);
+    for (let k = 0; k < rx.count; k++) {
+      const i = this.at(r, k), j = other.at(s, k);
+      if (x.store.op[i] !== y.store.op[j] || ix[x.store.yarn[i]] !== iy[y.store.yarn[j]]) return false;
+      if ((x.store.flags[i] & FLAG_BACKING) !== (y.store.flags[j] & FLAG_BACKING)) return false;
+    }
+    return true;
+  }
+
   /** The name of a stitch-table code. */
   opName(code: number): string { return this.model.stitches.ops[code]?.name ?? `#${code}`; }
 

@@ -85,7 +85,8 @@ export function diffSize(name: string, a: SizeView, b: SizeView, pairing: RoundP
   let run: RenumberedRun | null = null;
   for (const st of pairing.steps) {
     if (st.o >= 0 && st.n >= 0) {
-      const { aspects, cellsChanged } = compareRounds(a, st.o, b, st.n, yarns, cells, maxCells);
+      const same = a.sameRound(st.o, b, st.n, yarns.ids);
+      const { aspects, cellsChanged } = same ? { aspects: [], cellsChanged: 0 } : compareRounds(a, st.o, b, st.n, yarns, cells, maxCells);
       cellsTotal += cellsChanged;
       if (aspects.length > 0) {
         rounds.push({ kind: 'changed', old: a.state(st.o), new: b.state(st.n), aspects, cellsChanged });

@@ -194,6 +194,14 @@ describe('diff properties', () => {
     }), RUNS);
   });
 
+  it('never throws on arbitrary text on either side and still mirrors', () => {
+    const noise = fc.oneof(fc.string({ maxLength: 200 }), pairArb.map((p) => p.a.slice(0, Math.floor(p.a.length / 2))));
+    fc.assert(fc.property(noise, pairArb, (junk, { a }) => {
+      const ab = diffRevisions(junk, a), ba = diffRevisions(a, junk);
+      expect(withoutText(ba)).toEqual(mirror(ab));
+    }), RUNS);
+  });
+
   it('text hunks quote the sources at their line numbers and rebuild the new source', () => {
     fc.assert(fc.property(pairArb, ({ a, b }) => {
       const t = diffRevisions(a, b).text;
