@@ -11,7 +11,7 @@ import type { TextDiff, TextHunk, TextLine } from './types';
  * is quadratic in the worst case); the sources are then shown as one hunk
  * that replaces everything. Deterministic, unlike a time limit.
  */
-export const MAX_TEXT_EDITS = 2000;
+export const MAX_TEXT_EDITS = 1000;
 
 const splitLines = (s: string): string[] => {
   if (s === '') return [];
