@@ -13,13 +13,12 @@ import {
   copyLineDown, copyLineUp, deleteLine, history, historyKeymap, indentLess, indentMore, indentWithTab, moveLineDown, moveLineUp, selectLine, standardKeymap,
 } from '@codemirror/commands';
 import { completionKeymap } from '@codemirror/autocomplete';
-import '@fontsource/jetbrains-mono/latin-400.css';
+import '../styles/editor.css';
 import { compiledField } from './compile-state';
 import { loopCompletion } from './completion';
 import { loopHighlighting } from './highlight';
 import { loopLint, nextProblem, previousProblem } from './lint';
 import { roundHover } from './hover';
-import { loopTheme } from './theme';
 
 /** What the workspace can do to the editor. */
 export interface EditorHandle {
@@ -38,7 +37,6 @@ export interface LoopEditorProps {
   onDocChange: (doc: string) => void;
   /** 1-based line of the main cursor. */
   onCursorLine?: (line: number) => void;
-  onSave: () => void;
   onReady: (handle: EditorHandle | null) => void;
   /** Extra keyboard shortcuts (for example pane switching). */
   extraKeys?: Extension;
@@ -65,7 +63,6 @@ export function loopExtensions(): Extension[] {
     loopHighlighting,
     loopCompletion,
     roundHover,
-    loopTheme,
   ];
 }
 
@@ -98,11 +95,11 @@ const lineKeys = [
   { key: 'Mod-]', run: indentMore },
 ];
 
-export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSave, onReady, extraKeys, readOnly = false }: LoopEditorProps) {
+export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onReady, extraKeys, readOnly = false }: LoopEditorProps) {
   const host = useRef<HTMLDivElement>(null);
   // Latest callbacks, read by the long-lived editor without rebuilding it.
-  const callbacks = useRef({ onDocChange, onCursorLine, onSave, onReady });
-  callbacks.current = { onDocChange, onCursorLine, onSave, onReady };
+  const callbacks = useRef({ onDocChange, onCursorLine, onReady });
+  callbacks.current = { onDocChange, onCursorLine, onReady };
 
   useEffect(() => {
     if (!host.current) return;
@@ -113,7 +110,6 @@ export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSa
         doc: initialDoc,
         extensions: [
           keymap.of([
-            { key: 'Mod-s', preventDefault: true, run: () => { callbacks.current.onSave(); return true; } },
             { key: 'F8', run: nextProblem, preventDefault: true },
             { key: 'Shift-F8', run: previousProblem, preventDefault: true },
             { key: 'Mod-f', preventDefault: true, run: (v) => { void openSearch(v); return true; } },
@@ -160,5 +156,5 @@ export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onSa
     // The editor is rebuilt only for a new document; initialDoc is read once.
   }, [docKey]);
 
-  return <div ref={host} className="h-full min-h-0 overflow-hidden" data-testid="editor" />;
+  return <div ref={host} className="lw-editor h-full min-h-0 overflow-hidden" data-testid="editor" />;
 }

@@ -1,21 +1,27 @@
 /**
  * Compile worker: lexes each new text at once (for colouring), compiles it
- * after a quiet spell, and draws the views the page shows (the chart), all
- * off the main thread so typing never waits for the compiler. Texts that
- * arrive while one is being compiled make the older one moot: only the
- * newest is compiled.
+ * after a quiet spell, and draws the views the page shows (chart, written
+ * instructions), all off the main thread so typing never waits for the
+ * compiler. Texts that arrive while one is being compiled make the older
+ * one moot: only the newest is compiled. The renderers load the first time
+ * a view asks for them.
  */
 import { compile, highlightTokens, KEYWORDS, STITCH_NAMES, type CompileResult } from '../../shared';
-import { buildChart } from '../../shared/render/chart-model';
-import { renderChartSvg } from '../../shared/render/chart-svg';
-import { renderBackSvg } from '../../shared/render/back-svg';
-import type { ChartMessage, CompiledView, HighlightToken, SourceMessage, ViewSettings, WorkerAnswer, WorkerMessage } from './protocol';
+import type { ChartMessage, CompiledView, HighlightToken, InstructionsMessage, SourceMessage, ViewSettings, WorkerAnswer, WorkerMessage } from './protocol';
+
+const loadChart = () => Promise.all([
+  import('../../shared/render/chart-model'), import('../../shared/render/chart-svg'), import('../../shared/render/back-svg'),
+]);
+const loadInstructions = () => import('../../shared/render/instructions');
 
 const post = (m: WorkerAnswer) => (self as unknown as Worker).postMessage(m);
 let latest: SourceMessage | null = null;
 let timer: ReturnType<typeof setTimeout> | null = null;
-let settings: ViewSettings = { chart: null };
-let compiled: { id: number; result: CompileResult } | null = null;
+let settings: ViewSettings = { chart: null, instructions: null };
+let compiled: { id: number; source: string; result: CompileResult } | null = null;
+const NOTHING_YET = 'There is nothing to show yet: cast on and write the first round.';
+const bug = (what: string, err: unknown) =>
+  `The ${what} could not be drawn (${err instanceof Error ? err.message : String(err)}). This is a bug in Loopwright; the counts and problems are still right.`;
 
 function tokensOf(source: string): HighlightToken[] {
   try {
@@ -30,26 +36,48 @@ const emptyHeader: CompiledView['header'] = {
 };
 
 /** Draws the chart the page asked for from the newest compile. */
-function drawViews(): void {
+async function drawChart(): Promise<void> {
   const want = settings.chart;
-  if (!want || !compiled) return;
-  const { id, result } = compiled;
+  const current = compiled;
+  if (!want || !current) return;
+  const { id, result } = current;
   const size = want.size && result.sizes.some((s) => s.name === want.size) ? want.size : result.sizes[0]?.name;
   const base = { type: 'chart' as const, id, size: size ?? '', side: want.side, cell: want.cell };
   let answer: ChartMessage;
-  if (!size) {
-    answer = { ...base, svg: null, problem: 'There is nothing to chart yet: cast on and write the first round.' };
-  } else {
-    try {
-      const model = buildChart(result, size);
-      answer = !model || model.rows.length === 0
-        ? { ...base, svg: null, problem: 'There is nothing to chart yet: cast on and write the first round.' }
-        : { ...base, svg: want.side === 'back' ? renderBackSvg(model, { cell: want.cell }) : renderChartSvg(model, { cell: want.cell }) };
-    } catch (err) {
-      answer = { ...base, svg: null, problem: `The chart could not be drawn (${err instanceof Error ? err.message : String(err)}). This is a bug in Loopwright; the counts and problems are still right.` };
-    }
+  try {
+    const [{ buildChart }, { renderChartSvg }, { renderBackSvg }] = await loadChart();
+    const model = size ? buildChart(result, size) : null;
+    answer = !model || model.rows.length === 0
+      ? { ...base, svg: null, problem: NOTHING_YET }
+      : { ...base, svg: want.side === 'back' ? renderBackSvg(model, { cell: want.cell }) : renderChartSvg(model, { cell: want.cell }) };
+  } catch (err) {
+    answer = { ...base, svg: null, problem: bug('chart', err) };
   }
   post(answer);
+}
+
+/** Writes the instructions the page asked for from the newest compile. */
+async function writeViews(): Promise<void> {
+  const want = settings.instructions;
+  const current = compiled;
+  if (!want || !current) return;
+  const { id, source, result } = current;
+  const size = want.size && result.sizes.some((s) => s.name === want.size) ? want.size : result.sizes[0]?.name;
+  const base = { type: 'instructions' as const, id, size: size ?? '' };
+  let answer: InstructionsMessage;
+  try {
+    const { writeInstructions } = await loadInstructions();
+    const ins = size ? writeInstructions(source, result, size) : null;
+    answer = ins && ins.entries.length ? { ...base, instructions: ins } : { ...base, instructions: null, problem: NOTHING_YET };
+  } catch (err) {
+    answer = { ...base, instructions: null, problem: bug('instructions', err) };
+  }
+  post(answer);
+}
+
+function drawViews(): void {
+  void drawChart();
+  void writeViews();
 }
 
 function compileLatest(): void {
@@ -61,7 +89,7 @@ function compileLatest(): void {
   let view: CompiledView;
   try {
     const result = compile(msg.source);
-    compiled = { id: msg.id, result };
+    compiled = { id: msg.id, source: msg.source, result };
     view = {
       type: 'compiled',
       id: msg.id,

@@ -10,6 +10,7 @@
  * even for a 300-round pattern in several sizes.
  */
 import type { Diagnostic, PatternHeader, RoundSummary } from '../../shared';
+import type { Instructions } from '../../shared/render/instructions';
 
 /** One coloured token (offsets into the source, `to` exclusive). Kinds as `highlightTokens` reports them. */
 export interface HighlightToken {
@@ -69,6 +70,8 @@ export interface CompiledView {
 export interface ViewSettings {
   /** Chart of one size (null size: the first), front or back of the work, cell size in px. */
   chart: { size: string | null; side: 'front' | 'back'; cell: number } | null;
+  /** Written instructions of one size (null: the first). */
+  instructions: { size: string | null } | null;
 }
 
 /** Page → worker: the views to render from now on. */
@@ -90,5 +93,16 @@ export interface ChartMessage {
   problem?: string;
 }
 
+/** Worker → page: written instructions of one size (structured; the page lays them out). */
+export interface InstructionsMessage {
+  type: 'instructions';
+  id: number;
+  size: string;
+  instructions: Instructions | null;
+  /** Why there are none, in plain words. */
+  problem?: string;
+}
+
+export type { Instructions };
 export type WorkerMessage = SourceMessage | SettingsMessage;
-export type WorkerAnswer = VocabularyMessage | TokensMessage | CompiledView | ChartMessage;
+export type WorkerAnswer = VocabularyMessage | TokensMessage | CompiledView | ChartMessage | InstructionsMessage;

@@ -5,7 +5,7 @@
  * dropped. The worker lives as long as the component.
  */
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { ChartMessage, CompiledView, TokensMessage, ViewSettings, VocabularyMessage, WorkerAnswer } from './protocol';
+import type { ChartMessage, CompiledView, InstructionsMessage, TokensMessage, ViewSettings, VocabularyMessage, WorkerAnswer } from './protocol';
 
 /** Default quiet time before compiling, in milliseconds. */
 export const COMPILE_DEBOUNCE_MS = 150;
@@ -19,6 +19,8 @@ export interface Compiler {
   update: (source: string, immediate?: boolean) => void;
   /** The newest chart drawing (for the settings last sent), or null. */
   chart: ChartMessage | null;
+  /** The newest written instructions (for the settings last sent), or null. */
+  instructions: InstructionsMessage | null;
   /** Tell the worker which views to draw. */
   setViews: (settings: ViewSettings) => void;
 }
@@ -39,6 +41,7 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
   const [view, setView] = useState<CompiledView | null>(null);
   const [pending, setPending] = useState(false);
   const [chart, setChart] = useState<ChartMessage | null>(null);
+  const [instructions, setInstructions] = useState<InstructionsMessage | null>(null);
 
   useEffect(() => {
     const w = new Worker(new URL('./compile.worker.ts', import.meta.url), { type: 'module', name: 'loopwright-compile' });
@@ -47,6 +50,7 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
       if (m.type === 'vocabulary') listen.current.onVocabulary(m);
       else if (m.type === 'tokens') { if (m.id === wanted.current) listen.current.onTokens(m); }
       else if (m.type === 'chart') setChart(m);
+      else if (m.type === 'instructions') setInstructions(m);
       else if (m.id === wanted.current) { setView(m); setPending(false); }
     };
     worker.current = w;
@@ -73,5 +77,5 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
     else queued.current.push(msg);
   }, []);
 
-  return { view, pending, update, chart, setViews };
+  return { view, pending, update, chart, instructions, setViews };
 }

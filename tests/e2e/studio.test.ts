@@ -101,11 +101,11 @@ describe('the studio in Chromium', () => {
     const problems = page.getByRole('list', { name: 'Problems' }).getByRole('listitem');
     await expect.poll(() => problems.count()).toBeGreaterThan(0);
     const first = problems.first();
-    const text = (await first.textContent()) ?? '';
-    expect(text).toContain('round 5');
-    expect(text).toContain('104');
-    expect(text).toContain('108');
-    expect(text).toContain('size L');
+    const problemText = (await first.textContent()) ?? '';
+    expect(problemText).toContain('round 5');
+    expect(problemText).toContain('104');
+    expect(problemText).toContain('108');
+    expect(problemText).toContain('size L');
     // Sizes S and M still add up: no problem names them.
     const all = (await problems.allTextContents()).join('\n');
     expect(all).not.toMatch(/size [SM]\b/);
@@ -137,6 +137,18 @@ describe('the studio in Chromium', () => {
     // Clicking a stitch of round 6 moves the editor to its line.
     await chart.locator('g[data-round="6"]').first().click();
     expect(await page.locator('.cm-activeLine').textContent()).toContain('round 6: k to end in B');
+
+    // The written instructions of size M follow too: 24 repeats on round 5,
+    // 96 + 24 = 120 sts after it, round 6 worked with B.
+    await page.keyboard.press('Alt+4');
+    const instructions = page.getByTestId('instructions');
+    await page.getByRole('group', { name: 'Size' }).getByRole('button', { name: 'M', exact: true }).click();
+    await expect.poll(() => instructions.textContent(), { timeout: 10_000 }).toContain('Size M');
+    const text = (await instructions.textContent()) ?? '';
+    expect(text).toContain('Cast on 96 sts');
+    expect(text).toMatch(/Rnd 5:.*24 times.*\(120 sts\)/);
+    expect(text).toMatch(/Rnd 6:.*with B/);
+    await shot(page, '03c-instructions');
 
     await page.keyboard.press('Control+s');
     const dialog = page.getByRole('dialog', { name: 'Save a revision' });

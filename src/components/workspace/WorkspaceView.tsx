@@ -20,6 +20,7 @@ import { Notice } from '../Notice';
 import { relativeTime } from '../format';
 import { ChartPane, type ChartSettings } from './ChartPane';
 import { CountsPane } from './CountsPane';
+import { InstructionsPane } from './InstructionsPane';
 import { HelpOverlay } from './HelpOverlay';
 import { PaneTabs, type PaneTab } from './PaneTabs';
 import { ProblemsPane } from './ProblemsPane';
@@ -29,7 +30,7 @@ import { useWorkspaceKeys } from './useWorkspaceKeys';
 import { WorkspaceHeader } from './WorkspaceHeader';
 import { writeSetAside } from './drafts';
 
-type PaneKey = 'counts' | 'problems' | 'chart';
+type PaneKey = 'counts' | 'problems' | 'chart' | 'instructions';
 
 // Loaded only when a save meets a newer revision (it brings the text-diff library).
 const ConflictDialog = lazy(() => import('./ConflictDialog').then((m) => ({ default: m.ConflictDialog })));
@@ -58,6 +59,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
   const [toast, setToast] = useState<string | null>(null);
   const [showRestored, setShowRestored] = useState(session.restored !== null);
   const [chartSettings, setChartSettings] = useState<ChartSettings>({ size: null, side: 'front', cell: 16 });
+  const [instructionsSize, setInstructionsSize] = useState<string | null>(null);
   const canEdit = !pattern.myRole || pattern.myRole === 'owner';
 
   const view = compiler.view;
@@ -74,8 +76,11 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
   const { update, setViews } = compiler;
   // The worker draws the chart only while its pane is showing.
   useEffect(() => {
-    setViews({ chart: pane === 'chart' ? chartSettings : null });
-  }, [pane, chartSettings, setViews]);
+    setViews({
+      chart: pane === 'chart' ? chartSettings : null,
+      instructions: pane === 'instructions' ? { size: instructionsSize } : null,
+    });
+  }, [pane, chartSettings, instructionsSize, setViews]);
   const { onDocChange } = session;
   const handleDocChange = useCallback((doc: string) => { onDocChange(doc); update(doc); }, [onDocChange, update]);
   const initialDoc = session.initialDoc;
@@ -135,9 +140,11 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
       ) : undefined,
     },
     { key: 'chart', label: 'Chart', shortcut: 'Alt+3' },
+    { key: 'instructions', label: 'Instructions', shortcut: 'Alt+4' },
   ];
 
   useWorkspaceKeys({
+    onSave: openSave,
     onPane: (i) => { if (tabs[i]) setPane(tabs[i].key); },
     onEditor: () => editor.current?.focus(),
     onHelp: () => setHelpOpen(true),
@@ -201,7 +208,6 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
               initialDoc={session.initialDoc}
               onDocChange={handleDocChange}
               onCursorLine={setCursorLine}
-              onSave={openSave}
               onReady={handleReady}
               readOnly={!canEdit}
             />
@@ -221,6 +227,11 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
               <ChartPane chart={compiler.chart} sizes={view?.sizes.map((s) => s.name) ?? []} settings={chartSettings} onSettings={setChartSettings}
                 stale={compiler.pending || (compiler.chart !== null && view !== null && compiler.chart.id !== view.id)}
                 cursorLine={cursorLine} onJump={jumpRange} word={view?.header.construction === 'flat' ? 'Row' : 'Round'} />
+            )}
+            {pane === 'instructions' && (
+              <InstructionsPane message={compiler.instructions} sizes={view?.sizes.map((s) => s.name) ?? []} size={instructionsSize}
+                onSize={setInstructionsSize} cursorLine={cursorLine} onJump={jump}
+                stale={compiler.pending || (compiler.instructions !== null && view !== null && compiler.instructions.id !== view.id)} />
             )}
           </div>
         </section>

@@ -1,10 +1,13 @@
 /**
- * Window-level workspace shortcuts: Alt+digit picks a pane (Alt+0 returns
- * to the editor), F1 (or ? outside text fields) opens the shortcut list.
+ * Window-level workspace shortcuts, so they work wherever focus is: Mod+S
+ * saves (never the browser's "save page"), Alt+digit picks a pane (Alt+0
+ * returns to the editor), F1 (or ? outside text fields) opens the shortcut
+ * list.
  */
 import { useEffect, useRef } from 'react';
 
 export interface WorkspaceKeyHandlers {
+  onSave: () => void;
   onPane: (index: number) => void;
   onEditor: () => void;
   onHelp: () => void;
@@ -20,6 +23,12 @@ export function useWorkspaceKeys(handlers: WorkspaceKeyHandlers): void {
   ref.current = handlers;
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
+      const mod = e.ctrlKey || e.metaKey;
+      if (mod && !e.altKey && !e.shiftKey && e.key.toLowerCase() === 's') {
+        e.preventDefault();
+        if (!document.querySelector('dialog[open]')) ref.current.onSave();
+        return;
+      }
       if (document.querySelector('dialog[open]')) return; // a dialog has the keyboard
       if (e.altKey && !e.ctrlKey && !e.metaKey && /^Digit[0-9]$/.test(e.code)) {
         e.preventDefault();
