@@ -6,15 +6,23 @@
  */
 import type { Sequelize } from 'sequelize';
 import { Comment, initComment } from './comment.ts';
+import { Entitlement, initEntitlement } from './entitlement.ts';
 import { Invitation, initInvitation } from './invitation.ts';
 import { Membership, initMembership } from './membership.ts';
+import { Order, initOrder } from './order.ts';
 import { PasswordReset, initPasswordReset } from './password-reset.ts';
 import { Pattern, initPattern } from './pattern.ts';
+import { PaymentEvent, initPaymentEvent } from './payment-event.ts';
+import { Price, initPrice } from './price.ts';
+import { Product, initProduct } from './product.ts';
+import { ProductPhoto, initProductPhoto } from './product-photo.ts';
 import { Revision, initRevision } from './revision.ts';
 import { Upload, initUpload } from './upload.ts';
 import { User, initUser } from './user.ts';
 
 export { Comment, Invitation, Membership, PasswordReset, Pattern, Revision, Upload, User };
+export { Entitlement, Order, PaymentEvent, Price, Product, ProductPhoto };
+export type { OrderStatus } from './order.ts';
 export type { GlobalRole } from './user.ts';
 export type { MemberRole } from './membership.ts';
 export type { PatternStatus } from './pattern.ts';
@@ -53,4 +61,21 @@ export function initModels(sequelize: Sequelize): void {
 
   Upload.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
   Upload.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });
+
+  // The shop (issue 9): listings, prices, photos, orders, entitlements, processed webhook events.
+  initProduct(sequelize);
+  initPrice(sequelize);
+  initProductPhoto(sequelize);
+  initOrder(sequelize);
+  initEntitlement(sequelize);
+  initPaymentEvent(sequelize);
+  Product.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });
+  Product.hasMany(Price, { foreignKey: 'productId', as: 'prices', onDelete: 'CASCADE' });
+  Product.hasMany(ProductPhoto, { foreignKey: 'productId', as: 'photos', onDelete: 'CASCADE' });
+  ProductPhoto.belongsTo(Upload, { foreignKey: 'uploadId', as: 'upload' });
+  Order.belongsTo(User, { foreignKey: 'buyerId', as: 'buyer' });
+  Order.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });
+  Order.belongsTo(Product, { foreignKey: 'productId', as: 'product' });
+  Entitlement.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });
+  Entitlement.belongsTo(Order, { foreignKey: 'orderId', as: 'order' });
 }

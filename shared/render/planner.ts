@@ -197,6 +197,26 @@ export function floatRuns(front: Uint8Array, backAt: readonly number[], y: numbe
   return runs;
 }
 
+/**
+ * The fewest points hitting every interval [lo, hi] (inclusive, integers),
+ * using only points in [allowedLo, allowedHi]: the greedy of step 3 above
+ * (sort by right end, take the rightmost allowed point of the first
+ * interval not yet hit). Intervals with no allowed point are counted in
+ * `unhittable` and skipped. Points come out in increasing order.
+ */
+export function stabIntervals(intervals: readonly (readonly [number, number])[], allowedLo: number, allowedHi: number): { points: number[]; unhittable: number } {
+  const points: number[] = [];
+  let unhittable = 0;
+  for (const [lo, hi] of [...intervals].sort((x, y) => Math.min(x[1], allowedHi) - Math.min(y[1], allowedHi))) {
+    const a = Math.max(lo, allowedLo), b = Math.min(hi, allowedHi);
+    if (a > b) { unhittable++; continue; }
+    // Points are taken in increasing order, so the last one is the only one that can lie in [a, b] if any does.
+    if (points.length && points[points.length - 1] >= a) continue;
+    points.push(b);
+  }
+  return { points, unhittable };
+}
+
 /** Plans one size; null (with a problem) when it cannot. */
 function planSize(s: SizeModel, result: CompileResult, req: PlanRequest, limit: number, problems: string[]): SizePlan | null {
   const views = viewRounds(s, req, problems);
@@ -233,15 +253,10 @@ function planSize(s: SizeModel, result: CompileResult, req: PlanRequest, limit: 
       }
     }
   }
-  const chosen: number[] = [];
   const clip = ([a, b]: [number, number]): [number, number] => [Math.max(a, lo0), Math.min(b, hi0)];
-  let unfixable = 0;
-  for (const iv of [...linear].sort((a, b) => a[1] - b[1])) {
-    const [a, b] = clip(iv);
-    if (a > b) { unfixable++; continue; }
-    if (chosen.length && chosen[chosen.length - 1] >= a) continue;
-    chosen.push(b);
-  }
+  const stabbed = stabIntervals(linear, lo0, hi0);
+  const chosen = stabbed.points;
+  let unfixable = stabbed.unhittable;
   for (const pieces of wrapping) {
     const clipped = pieces.map(clip).filter(([a, b]) => a <= b);
     if (clipped.length === 0) { unfixable++; continue; }
