@@ -14,6 +14,12 @@ export class Comment extends Model<InferAttributes<Comment>, InferCreationAttrib
   declare toLine: CreationOptional<number | null>;
   declare body: string;
   declare resolved: CreationOptional<boolean>;
+  /** The thread's first comment when this is a reply (replies are one level deep). */
+  declare parentId: CreationOptional<number | null>;
+  /** `erratum`: reported by a knitter on a released revision. */
+  declare kind: CreationOptional<'comment' | 'erratum'>;
+  /** Size the comment is about (errata), if any. */
+  declare size: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare author?: NonAttribute<User>;
@@ -28,6 +34,9 @@ export function initComment(sequelize: Sequelize): void {
     toLine: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
     body: { type: DataTypes.TEXT, allowNull: false },
     resolved: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    parentId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+    kind: { type: DataTypes.ENUM('comment', 'erratum'), allowNull: false, defaultValue: 'comment' },
+    size: { type: DataTypes.STRING(100), allowNull: true },
     createdAt: DataTypes.DATE(3),
     updatedAt: DataTypes.DATE(3),
   }, { sequelize, tableName: 'comments' });

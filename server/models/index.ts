@@ -8,10 +8,13 @@ import type { Sequelize } from 'sequelize';
 import { Comment, initComment } from './comment.ts';
 import { Entitlement, initEntitlement } from './entitlement.ts';
 import { Invitation, initInvitation } from './invitation.ts';
+import { KnittingProgress, initKnittingProgress } from './knitting-progress.ts';
 import { Membership, initMembership } from './membership.ts';
 import { Order, initOrder } from './order.ts';
 import { PasswordReset, initPasswordReset } from './password-reset.ts';
 import { Pattern, initPattern } from './pattern.ts';
+import { Release, initRelease } from './release.ts';
+import { ReviewEvent, initReviewEvent } from './review-event.ts';
 import { PaymentEvent, initPaymentEvent } from './payment-event.ts';
 import { Price, initPrice } from './price.ts';
 import { Product, initProduct } from './product.ts';
@@ -20,7 +23,7 @@ import { Revision, initRevision } from './revision.ts';
 import { Upload, initUpload } from './upload.ts';
 import { User, initUser } from './user.ts';
 
-export { Comment, Invitation, Membership, PasswordReset, Pattern, Revision, Upload, User };
+export { Comment, Invitation, KnittingProgress, Membership, PasswordReset, Pattern, Release, Revision, ReviewEvent, Upload, User };
 export { Entitlement, Order, PaymentEvent, Price, Product, ProductPhoto };
 export type { OrderStatus } from './order.ts';
 export type { GlobalRole } from './user.ts';
@@ -37,6 +40,9 @@ export function initModels(sequelize: Sequelize): void {
   initPasswordReset(sequelize);
   initComment(sequelize);
   initUpload(sequelize);
+  initReviewEvent(sequelize);
+  initRelease(sequelize);
+  initKnittingProgress(sequelize);
 
   User.hasMany(Pattern, { foreignKey: 'ownerId', as: 'ownedPatterns' });
   Pattern.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
@@ -58,6 +64,20 @@ export function initModels(sequelize: Sequelize): void {
   Comment.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
   Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
   Revision.hasMany(Comment, { foreignKey: 'revisionId', as: 'comments' });
+
+  Comment.belongsTo(Comment, { foreignKey: 'parentId', as: 'parent' });
+
+  ReviewEvent.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });
+  ReviewEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  ReviewEvent.belongsTo(User, { foreignKey: 'editorId', as: 'editor' });
+
+  Release.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });
+  Release.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
+  Release.belongsTo(User, { foreignKey: 'releasedById', as: 'releasedBy' });
+  Pattern.hasMany(Release, { foreignKey: 'patternId', as: 'releases' });
+
+  KnittingProgress.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  KnittingProgress.belongsTo(Release, { foreignKey: 'releaseId', as: 'release' });
 
   Upload.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
   Upload.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' });

@@ -2,7 +2,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { User } from './user.ts';
 
-export const PATTERN_STATUSES = ['draft', 'in-review', 'approved', 'released'] as const;
+export const PATTERN_STATUSES = ['draft', 'in-review', 'changes-requested', 'approved', 'released'] as const;
 export type PatternStatus = (typeof PATTERN_STATUSES)[number];
 
 /** Row of `patterns`; `latestRevision` is advanced only inside the save transaction. */
