@@ -32,6 +32,14 @@ export interface ChartRow {
   produces: number;
   /** Source index of the row's line. */
   src: number;
+  /**
+   * True when every cell takes one stitch and gives one (no-stitch cells
+   * aside): the machine may then write the row in one go. `rs`/`ws` hold the
+   * worked cells in working order (op code, yarn index or -1).
+   */
+  simple: boolean;
+  rs: { op: Uint8Array; yarn: Int16Array };
+  ws: { op: Uint8Array; yarn: Int16Array };
 }
 
 /** A chart ready to work. rows[0] is row 1 (the bottom row as drawn). */
@@ -90,7 +98,17 @@ export function prepareCharts(charts: readonly ChartBlock[], head: ResolvedHeade
         cells.push(cell);
         if (!cell.none) { consumes += cell.rs.consumes; produces += cell.rs.produces; }
       }
-      rows.push({ cells, consumes, produces, src: sources.add(row.span) });
+      const worked = cells.filter((x) => !x.none);
+      const rsOrder = [...worked].reverse(); // RS rows are read right to left
+      const pack = (list: Cell[], ws: boolean) => ({
+        op: Uint8Array.from(list.map((x) => (ws ? x.ws : x.rs).code)),
+        yarn: Int16Array.from(list.map((x) => x.yarn)),
+      });
+      rows.push({
+        cells, consumes, produces, src: sources.add(row.span),
+        simple: worked.every((x) => x.rs.consumes === 1 && x.rs.produces === 1 && x.ws.consumes === 1 && x.ws.produces === 1),
+        rs: pack(rsOrder, false), ws: pack(worked, true),
+      });
     }
     out.set(c.name.name, { name: c.name.name, width, rows });
   }

@@ -38,33 +38,24 @@ export function measureFloats(
   const { flags, yarn } = store;
   let front = 0;
   let c = 0;
-  const catchHere = (y: number, at: number, stitch: number) => {
-    if (last[y] < 0) firstGap[y] = at;
-    else {
-      const gap = at - last[y];
-      if (gap > best[y]) { best[y] = gap; bestFrom[y] = lastStitch[y]; bestTo[y] = stitch; }
-    }
-  };
-  for (let i = off; i < off + len; i++) {
-    while (c < catchAt.length && catchAt[c] <= front) {
+  const end = off + len;
+  for (let i = off; i <= end; i++) {
+    // Explicit catches recorded before front stitch `front` come first.
+    while (c < catchAt.length && (i === end || catchAt[c] <= front)) {
       const y = catchYarn[c++];
-      catchHere(y, front, i);
-      last[y] = front; lastStitch[y] = i;
+      const at = i === end ? front : catchAt[c - 1];
+      if (last[y] < 0) firstGap[y] = at;
+      else if (at - last[y] > best[y]) { best[y] = at - last[y]; bestFrom[y] = lastStitch[y]; bestTo[y] = i < end ? i : end - 1; }
+      last[y] = at; lastStitch[y] = i < end ? i : end - 1;
     }
+    if (i === end) break;
     const y = yarn[i];
-    if (flags[i] & FLAG.BACKING) {
-      catchHere(y, front, i);
-      last[y] = front; lastStitch[y] = i;
-    } else {
-      catchHere(y, front, i);
-      front++;
-      last[y] = front; lastStitch[y] = i;
-    }
-  }
-  while (c < catchAt.length) {
-    const y = catchYarn[c++];
-    catchHere(y, front, off + len - 1);
-    last[y] = front; lastStitch[y] = off + len - 1;
+    // A front stitch in y or a backing stitch in y both catch y at this point.
+    const gap = front - last[y];
+    if (last[y] < 0) firstGap[y] = front;
+    else if (gap > best[y]) { best[y] = gap; bestFrom[y] = lastStitch[y]; bestTo[y] = i; }
+    if ((flags[i] & FLAG.BACKING) === 0) front++;
+    last[y] = front; lastStitch[y] = i;
   }
   const runs: FloatRun[] = [];
   for (let y = 0; y < yarnCount; y++) {

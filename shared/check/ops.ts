@@ -119,8 +119,23 @@ function chartRow(m: Machine, op: Extract<Op, { type: 'chart' }>, report: boolea
 
 /** Works a chart row once: right to left on RS rows, left to right on WS rows. */
 function workChartRow(m: Machine, row: ChartRow, yarn: number): void {
-  const cells = row.cells;
   const ws = m.side === 'WS';
+  const n = row.consumes;
+  // Fast path: plain cells over plain front stitches, no marker, ladder or held column in the way.
+  if (row.simple && !m.hasBacking && m.ladder === null && m.pendingClose < 0 && m.end - m.pos >= n && m.nextEvent >= m.pos + n) {
+    const cells = ws ? row.ws : row.rs;
+    const s = m.store;
+    if (s.length + n > s.op.length) s.reserve(n);
+    let k = s.length;
+    for (let j = 0; j < n; j++, k++) {
+      const y = cells.yarn[j];
+      s.op[k] = cells.op[j]; s.yarn[k] = y >= 0 ? y : yarn; s.flags[k] = FLAG.CHART; s.src[k] = row.src; s.col[k] = -1;
+    }
+    s.length = k;
+    m.pos += n; m.front += n; m.worked += n;
+    return;
+  }
+  const cells = row.cells;
   for (let k = 0; k < cells.length; k++) {
     const cell = cells[ws ? k : cells.length - 1 - k];
     if (cell.none) continue;

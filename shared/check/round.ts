@@ -8,6 +8,7 @@ import { OP, type PatternAst, type RoundLine } from '../notation';
 import type { Span } from '../types';
 import { START_SEGMENT, type LadderRun, type Machine, type MarkerPos, type SegmentRange } from './machine';
 import { execOps } from './ops';
+import { LIMITS } from './context';
 import { measureFloats, type FloatRun } from './floats';
 import { FLAG } from './store';
 import type { PlannedRound, LineRange } from './plan';
@@ -64,6 +65,8 @@ export function workRounds(
   const { ctx, store } = m;
   // The cast-on is stored first, as the needle before round 1 (not a round).
   m.room(castOn.count, m.sources.spans[castOn.src]);
+  // Room for every round at the cast-on width (plus a little for shaping and backing), to grow rarely.
+  m.store.reserve(Math.min(castOn.count * (plan.length + 1) * 1.1 + 1024, LIMITS.stitchesPerSize * 1.05) | 0);
   if (m.aborted) return records;
   for (let i = 0; i < castOn.count; i++) {
     const k = store.length++;

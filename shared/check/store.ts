@@ -57,13 +57,13 @@ export class StitchStore {
     this.col = grow(this.col, (n) => new Int32Array(n));
   }
 
-  /** Copies the stored arrays down to their length (for a finished model). */
+  /** Narrows the arrays to their length (views, no copy) for a finished model. */
   trim(): void {
     const n = this.length;
-    this.op = this.op.slice(0, n);
-    this.yarn = this.yarn.slice(0, n);
-    this.flags = this.flags.slice(0, n);
-    this.src = this.src.slice(0, n);
-    this.col = this.col.slice(0, n);
+    this.op = this.op.subarray(0, n);
+    this.yarn = this.yarn.subarray(0, n);
+    this.flags = this.flags.subarray(0, n);
+    this.src = this.src.subarray(0, n);
+    this.col = this.col.subarray(0, n);
   }
 }
