@@ -5,7 +5,7 @@
  * stale), and Debian's Chromium driven by playwright-core.
  */
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import type { Server } from 'node:http';
+import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
@@ -48,7 +48,12 @@ export async function startHarness(): Promise<Harness> {
   await seedDemo(sequelize);
   const smtp: FakeSmtp = await startFakeSmtp({ port: 0 });
   const mailer: Mailer = createMailer({ host: smtp.host, port: smtp.port });
+  // Listen first, so mailed links can point at this server's own port.
+  const server: Server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   const app = createApp({
+    publicUrl: baseUrl,
     sequelize,
     mailer,
     jwtSecret: process.env.JWT_SECRET ?? 'e2e-secret',
@@ -58,10 +63,7 @@ export async function startHarness(): Promise<Harness> {
     storageDir: path.join(repoRoot, '.data', 'test', 'uploads'),
     bcryptCost: 10,
   });
-  const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
-  });
-  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  server.on('request', app);
 
   const userDataDir = mkdtempSync(path.join(os.tmpdir(), 'loopwright-e2e-'));
   const context = await chromium.launchPersistentContext(userDataDir, {

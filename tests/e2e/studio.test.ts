@@ -124,18 +124,23 @@ describe('the studio in Chromium', () => {
     expect(await page.getByTestId('unsaved').isVisible()).toBe(true);
 
     // The chart follows the text: round 6 of size M has 120 stitches; worked
-    // in yarn B they are drawn in B.
+    // in yarn B (#eeeae0) they are drawn in B's colour.
     await page.keyboard.press('Alt+3');
     const chart = page.getByTestId('chart');
     await page.getByRole('group', { name: 'Size' }).getByRole('button', { name: 'M', exact: true }).click();
     await expect.poll(() => chart.locator('svg title').textContent(), { timeout: 10_000 }).toContain('size M');
-    await expect.poll(() => chart.locator('g[data-round="6"]').count()).toBe(120);
-    expect(await chart.locator('g[data-round="6"][data-yarn="B"]').count()).toBe(0);
+    const round6 = chart.locator('g[data-round="6"] > [data-stitch]');
+    await expect.poll(() => round6.count()).toBe(120);
+    expect(await chart.locator('g[data-round="6"] > [fill="#eeeae0"]').count()).toBe(0);
     await replaceEditorLine(page, 11, 'round 6: k to end in B');
-    await expect.poll(() => chart.locator('g[data-round="6"][data-yarn="B"]').count(), { timeout: 10_000 }).toBe(120);
+    await expect.poll(() => chart.locator('g[data-round="6"] > [fill="#eeeae0"]').count(), { timeout: 10_000 }).toBe(120);
+    // The cursor is on round 6's line: its stitches are outlined.
+    await expect.poll(() => chart.locator('g[data-round="6"] > .lw-here').count()).toBe(120);
     await shot(page, '03b-chart');
     // Clicking a stitch of round 6 moves the editor to its line.
-    await chart.locator('g[data-round="6"]').first().click();
+    await page.locator('.cm-content').click();
+    await page.keyboard.press('Control+Home');
+    await round6.first().click();
     expect(await page.locator('.cm-activeLine').textContent()).toContain('round 6: k to end in B');
 
     // The written instructions of size M follow too: 24 repeats on round 5,
@@ -226,6 +231,36 @@ describe('the studio in Chromium', () => {
     const row3 = page.getByRole('row', { name: /^Row 3/ });
     await expect.poll(() => row3.textContent()).toContain('20 C');
     await shot(page, '05-floats-and-colours');
+    await page.close();
+  }, 120_000);
+
+  it('imports a .loop file from the library, keeps unsaved text across a reload and warns before leaving', async () => {
+    const page = await h.context.newPage();
+    await page.goto(`${h.baseUrl}/patterns`);
+    await page.getByRole('button', { name: 'Import .loop file' }).waitFor();
+    await page.locator('input[type="file"]').setInputFiles({ name: 'quarry-tote-panel.loop', mimeType: 'text/plain', buffer: Buffer.from(TOTE) });
+    await page.waitForURL(/\/patterns\/\d+$/);
+    const id = Number(page.url().split('/').pop());
+    await page.locator('.cm-content').waitFor();
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 15_000 }).toMatch(/warning/);
+
+    await replaceEditorLine(page, 10, 'row 3: k10 in C, k10 in A, k10 in C');
+    await expect.poll(() => page.evaluate((key) => localStorage.getItem(key), `loopwright:draft:${id}`)).toContain('k10 in A, k10 in C');
+
+    const dialogs: string[] = [];
+    page.on('dialog', (d) => { dialogs.push(d.type()); void d.accept(); });
+    await page.reload();
+    await page.locator('.cm-content').waitFor();
+    expect(dialogs).toContain('beforeunload');
+    await page.getByText('Restored your unsaved changes').waitFor();
+    expect(await page.locator('.cm-content').textContent()).toContain('row 3: k10 in C, k10 in A, k10 in C');
+    expect(await page.getByTestId('unsaved').isVisible()).toBe(true);
+    await shot(page, '08-restored-draft');
+
+    // The server still has only the imported revision.
+    const latest = await h.api<{ latestRevision: { number: number; source: string } }>(token, 'GET', `/api/patterns/${id}`);
+    expect(latest.body.latestRevision.number).toBe(1);
+    expect(latest.body.latestRevision.source).not.toContain('k10 in A, k10 in C');
     await page.close();
   }, 120_000);
 });

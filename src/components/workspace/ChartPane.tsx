@@ -4,6 +4,10 @@
  * back (backing columns and floats), with a size switcher and zoom.
  * Clicking a stitch moves the editor to the text that made it; the
  * stitches made by the line under the editor's cursor are outlined.
+ *
+ * Reads the renderer's data attributes: stitch cells carry data-from/data-to
+ * (source span) and data-stitch, row groups (and back-view cells) carry
+ * data-round, floats carry data-yarn and data-stitches.
  */
 import { memo, useEffect, useRef, useState, type MouseEvent } from 'react';
 import type { ChartMessage } from '../../editor/protocol';
@@ -20,20 +24,22 @@ export interface ChartSettings {
 export interface ChartPaneProps {
   chart: ChartMessage | null;
   sizes: string[];
+  /** Yarns of the pattern, to name a stitch's yarn from its colour. */
+  yarns: { name: string; label: string; colour: string }[];
   settings: ChartSettings;
   onSettings: (s: ChartSettings) => void;
   /** True while the drawing is older than the editor's text. */
   stale: boolean;
-  cursorLine: number;
+  /** Offsets of the line under the cursor in the compiled text (null when the text has moved on). */
+  cursorSpan: { from: number; to: number } | null;
   onJump: (from: number, to: number) => void;
   word: 'Round' | 'Row';
 }
 
-interface HoverInfo { round: string; stitch: string; op: string | null; yarn: string | null }
-
-export const ChartPane = memo(function ChartPane({ chart, sizes, settings, onSettings, stale, cursorLine, onJump, word }: ChartPaneProps) {
+export const ChartPane = memo(function ChartPane({ chart, sizes, yarns, settings, onSettings, stale, cursorSpan, onJump, word }: ChartPaneProps) {
   const box = useRef<HTMLDivElement>(null);
-  const [hover, setHover] = useState<HoverInfo | null>(null);
+  const [hover, setHover] = useState<string | null>(null);
+  const outlined = useRef<Element[]>([]);
   const size = chart?.size ?? settings.size ?? sizes[0] ?? '';
   const zoomIndex = Math.max(0, ZOOM_STEPS.indexOf(settings.cell as (typeof ZOOM_STEPS)[number]));
 
@@ -45,27 +51,43 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, settings, onSet
     if (el && shownKey) { el.scrollTop = el.scrollHeight; el.scrollLeft = el.scrollWidth; }
   }, [shownKey]);
 
+  // Outline the stitches made by the cursor's line, and bring the first into view.
   useEffect(() => {
-    const first = box.current?.querySelector(`g[data-line="${cursorLine}"]`);
-    first?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
-  }, [cursorLine, chart]);
+    for (const el of outlined.current) el.classList.remove('lw-here');
+    outlined.current = [];
+    const root = box.current;
+    if (!root || !cursorSpan) return;
+    for (const el of root.querySelectorAll('[data-from]')) {
+      const from = Number(el.getAttribute('data-from'));
+      if (from >= cursorSpan.from && from <= cursorSpan.to) outlined.current.push(el);
+    }
+    for (const el of outlined.current) el.classList.add('lw-here');
+    outlined.current[0]?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+  }, [cursorSpan, chart]);
 
-  const cellOf = (e: MouseEvent) => (e.target as Element).closest?.('g[data-round]') ?? null;
+  const yarnByColour = new Map(yarns.map((y) => [y.colour.toLowerCase(), y]));
+  const cellOf = (e: MouseEvent) => (e.target as Element).closest?.('[data-from], [data-stitch]') ?? null;
   const onClick = (e: MouseEvent) => {
-    const g = cellOf(e);
-    const from = Number(g?.getAttribute('data-from'));
-    const to = Number(g?.getAttribute('data-to'));
-    if (g && g.getAttribute('data-from') !== null && Number.isFinite(from)) onJump(from, Number.isFinite(to) ? to : from);
+    const cell = cellOf(e);
+    const from = Number(cell?.getAttribute('data-from') ?? NaN);
+    const to = Number(cell?.getAttribute('data-to') ?? NaN);
+    if (cell && Number.isFinite(from)) onJump(from, Number.isFinite(to) ? to : from);
   };
   const onMove = (e: MouseEvent) => {
-    const g = cellOf(e);
-    if (!g) { setHover(null); return; }
-    setHover({
-      round: g.getAttribute('data-round') ?? '',
-      stitch: g.getAttribute('data-stitch') ?? '',
-      op: g.getAttribute('data-op'),
-      yarn: g.getAttribute('data-yarn'),
-    });
+    const target = e.target as Element;
+    const float = target.closest?.('g.float[data-stitches]');
+    if (float) {
+      const over = float.classList.contains('over-limit');
+      setHover(`${word} ${float.getAttribute('data-round')}: ${float.getAttribute('data-yarn')} floats behind ${float.getAttribute('data-stitches')} stitches${over ? ', longer than the float limit' : ''}`);
+      return;
+    }
+    const cell = cellOf(e);
+    const round = cell?.closest('[data-round]')?.getAttribute('data-round');
+    if (!cell || !round) { setHover(null); return; }
+    const fill = (cell.getAttribute('fill') ?? cell.firstElementChild?.getAttribute('fill') ?? '').toLowerCase();
+    const yarn = yarnByColour.get(fill);
+    const stitch = cell.getAttribute('data-stitch');
+    setHover(`${word} ${round}${stitch ? `, stitch ${stitch}` : ''}${yarn ? ` in ${yarn.name} (${yarn.label})` : ''}${cell.classList.contains('backing') ? ', backing stitch' : ''}`);
   };
 
   return (
@@ -98,8 +120,6 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, settings, onSet
       </div>
       <div ref={box} className="lw-chart relative min-h-0 flex-1 overflow-auto bg-tide-50 p-3" onClick={onClick} onMouseMove={onMove} onMouseLeave={() => setHover(null)}
         data-testid="chart">
-        <style>{`.lw-chart g[data-line="${cursorLine}"] > rect:first-child { stroke: #2d2441; stroke-width: 2px; }
-.lw-chart g[data-from] { cursor: pointer; }`}</style>
         {!chart ? (
           <p className="p-4 text-sm text-tide-600" role="status">Drawing the chart…</p>
         ) : chart.svg ? (
@@ -110,9 +130,7 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, settings, onSet
         )}
       </div>
       <div className="flex h-7 shrink-0 items-center border-t border-tide-200 px-4 text-caption text-tide-700" aria-live="off">
-        {hover
-          ? `${word} ${hover.round}, stitch ${hover.stitch}${hover.op ? `: ${hover.op}` : ''}${hover.yarn ? ` in ${hover.yarn}` : ''}`
-          : `Point at a stitch to see what it is; click to go to its line.`}
+        {hover ?? 'Point at a stitch to see what it is; click to go to its line.'}
       </div>
     </div>
   );

@@ -4,7 +4,7 @@
  * a message, drafts kept locally, and stale-save conflicts resolved without
  * losing either side.
  */
-import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { Span } from '../../../shared';
 import type { Pattern, Revision } from '../../api/types';
 import { conflictOf, useSaveRevision } from '../../api/usePatterns';
@@ -150,7 +150,14 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     onHelp: () => setHelpOpen(true),
   });
 
-  const hereRounds = view && view.source === session.docRef.current ? roundsOnLine(view, cursorLine) : [];
+  const inStep = view !== null && view.source === session.docRef.current;
+  const hereRounds = inStep ? roundsOnLine(view, cursorLine) : [];
+  const cursorSpan = useMemo(() => {
+    const doc = editor.current?.view.state.doc;
+    if (!inStep || !doc || cursorLine > doc.lines) return null;
+    const line = doc.line(cursorLine);
+    return { from: line.from, to: line.to };
+  }, [inStep, cursorLine]);
   const hereLabel = hereRounds.length
     ? (() => {
       const nums = hereRounds[0].rounds.map((r) => r.number);
@@ -224,9 +231,10 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
             {pane === 'counts' && <CountsPane view={view} cursorLine={cursorLine} onJump={jump} />}
             {pane === 'problems' && <ProblemsPane view={view} stale={compiler.pending} onJump={jump} onFix={applyFix} />}
             {pane === 'chart' && (
-              <ChartPane chart={compiler.chart} sizes={view?.sizes.map((s) => s.name) ?? []} settings={chartSettings} onSettings={setChartSettings}
+              <ChartPane chart={compiler.chart} sizes={view?.sizes.map((s) => s.name) ?? []} yarns={view?.header.yarns ?? []}
+                settings={chartSettings} onSettings={setChartSettings}
                 stale={compiler.pending || (compiler.chart !== null && view !== null && compiler.chart.id !== view.id)}
-                cursorLine={cursorLine} onJump={jumpRange} word={view?.header.construction === 'flat' ? 'Row' : 'Round'} />
+                cursorSpan={cursorSpan} onJump={jumpRange} word={view?.header.construction === 'flat' ? 'Row' : 'Round'} />
             )}
             {pane === 'instructions' && (
               <InstructionsPane message={compiler.instructions} sizes={view?.sizes.map((s) => s.name) ?? []} size={instructionsSize}
