@@ -10,10 +10,13 @@
  *   only once one is released.
  * - Anybody else gets 404 (existence is not leaked); a member who can see the
  *   pattern but not do the action gets 403.
+ * - A knitter who bought a listed pattern (an active entitlement, see the
+ *   shop) is a knitter on it: the released revision, whichever release is
+ *   newest, until a refund revokes it.
  * - Creating patterns needs the global `designer` role (or `admin`);
  *   managing accounts needs `admin`. Admins see no pattern they are not on.
  */
-import { Membership, Pattern, type User } from '../models/index.ts';
+import { Entitlement, Membership, Pattern, type User } from '../models/index.ts';
 import { forbidden, notFound, unauthorized } from './errors.ts';
 
 export type PatternRole = 'owner' | 'editor' | 'test-knitter' | 'knitter';
@@ -30,6 +33,7 @@ export type PatternAction =
   | 'review'            // editor: in-review -> approved | draft
   | 'release'           // owner: approved -> released
   | 'upload'
+  | 'sell'              // owner: list in the shop, see sales, refund
   | 'view-uploads';
 
 /** Which pattern roles may take each action (the matrix the role test walks). */
@@ -45,6 +49,7 @@ export const POLICY: Readonly<Record<PatternAction, readonly PatternRole[]>> = {
   release: ['owner'],
   upload: ['owner'],
   'view-uploads': ['owner', 'editor', 'test-knitter', 'knitter'],
+  sell: ['owner'],
 };
 
 /** True when `role` may see the pattern at all (knitters only after a release). */
@@ -75,7 +80,19 @@ export function newestVisibleRevision(role: PatternRole, pattern: Pick<Pattern, 
 export async function roleOn(user: User, pattern: Pattern): Promise<PatternRole | null> {
   if (pattern.ownerId === user.id) return 'owner';
   const m = await Membership.findOne({ where: { patternId: pattern.id, userId: user.id } });
-  return m ? m.role : null;
+  if (m) return m.role;
+  return (await hasEntitlement(user.id, pattern.id)) ? 'knitter' : null;
+}
+
+/** True when the user holds an active (not refunded) entitlement to the pattern. */
+export async function hasEntitlement(userId: number, patternId: number): Promise<boolean> {
+  return (await Entitlement.count({ where: { userId, patternId, revokedAt: null } })) > 0;
+}
+
+/** Ids of the patterns the user holds an active entitlement to (bought in the shop). */
+export async function entitledPatternIds(userId: number): Promise<number[]> {
+  const rows = await Entitlement.findAll({ where: { userId, revokedAt: null }, attributes: ['patternId'] });
+  return rows.map((r) => r.patternId);
 }
 
 /**
