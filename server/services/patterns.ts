@@ -9,7 +9,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { SOURCE_MAX_BYTES, type ApiPattern, type ApiPatternListItem, type ApiRevision, type PatternStatusName } from '../../shared/api-schemas.ts';
 import type { ServerContext } from '../context.ts';
 import { Membership, Pattern, Revision, User } from '../models/index.ts';
-import { authorizePattern, canSee, isAllowed, newestVisibleRevision, visibleRevisions, type PatternAction, type PatternRole } from './access.ts';
+import { authorizePattern, canSee, entitledPatternIds, isAllowed, newestVisibleRevision, visibleRevisions, type PatternAction, type PatternRole } from './access.ts';
 import { AppError, badRequest, conflict, forbidden, notFound, tooLarge } from './errors.ts';
 import { toApiRevision, toPerson } from './serialize.ts';
 import { summarizeSource } from './compile-summary.ts';
@@ -63,6 +63,10 @@ export async function listPatterns(user: User): Promise<ApiPatternListItem[]> {
   const memberships = await Membership.findAll({ where: { userId: user.id }, include: [{ model: Pattern, as: 'pattern' }] });
   const entries: { pattern: Pattern; role: PatternRole }[] = owned.map((pattern) => ({ pattern, role: 'owner' as const }));
   for (const m of memberships) if (m.pattern && canSee(m.role, m.pattern)) entries.push({ pattern: m.pattern, role: m.role });
+  // Patterns bought in the shop (and not shared otherwise) are in the buyer's library as a knitter.
+  const listed = new Set(entries.map((e) => e.pattern.id));
+  const bought = (await entitledPatternIds(user.id)).filter((id) => !listed.has(id));
+  if (bought.length) for (const p of await Pattern.findAll({ where: { id: bought } })) if (canSee('knitter', p)) entries.push({ pattern: p, role: 'knitter' });
   if (entries.length === 0) return [];
   const wanted = entries.map((e) => ({ patternId: e.pattern.id, number: newestVisibleRevision(e.role, e.pattern) }));
   const revisions = await Revision.findAll({
