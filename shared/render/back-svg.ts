@@ -10,7 +10,7 @@
 import type { ChartModel } from './chart-model';
 import { columnNumbers, frameFor, heading, legend, legendWidth, markerLines, rowNumbers, spanAttrs, symbolDefs, type ChartDrawOptions } from './chart-frame';
 import { gridLines } from './chart-svg';
-import { el, svgDocument, text } from './svg';
+import { el, num, svgDocument, text } from './svg';
 
 const OVER = '#d62728';
 const BACK_NO_STITCH = '#9a9a9a';
@@ -24,48 +24,58 @@ export function renderBackSvg(model: ChartModel, options: ChartDrawOptions = {})
   const yarnIndex = new Map(model.yarns.map((y, i) => [y.name, i]));
   const yarnCount = Math.max(1, model.yarns.length);
   let overCount = 0;
+  // The grid is white; front stitches show only a strip of their yarn, merged along a row, so backing columns and floats stand out.
+  cells.push(el('rect', { x: frame.left, y: frame.top, width: frame.gridWidth, height: frame.gridHeight, fill: '#ffffff' }));
   model.rows.forEach((row, i) => {
     const y = frame.rowY(i);
-    row.cells.forEach((cell, x) => {
+    let x = 0;
+    while (x < row.cells.length) {
+      const cell = row.cells[x];
+      let run = 1;
+      const key = (k: number) => { const q = row.cells[k]; return !q ? 'none' : q.isBacking ? `b${k}` : q.colour; };
+      while (x + run < row.cells.length && key(x + run) === key(x) && !cell?.isBacking) run++;
       const cx = frame.colX(x);
-      if (!cell) { cells.push(el('rect', { x: cx, y, width: c, height: c, fill: BACK_NO_STITCH })); return; }
-      if (!cell.isBacking) {
-        // Front stitch: white with a strip of its yarn, so backing columns and floats stand out.
-        cells.push(el('rect', { x: cx, y, width: c, height: c, fill: '#ffffff' }));
-        cells.push(el('rect', { x: cx, y: y + c * 0.8, width: c, height: c * 0.2, fill: cell.colour }));
-        return;
+      if (!cell) cells.push(el('rect', { x: cx, y, width: run * c, height: c, fill: BACK_NO_STITCH }));
+      else if (!cell.isBacking) cells.push(el('rect', { x: cx, y: y + c * 0.8, width: run * c, height: c * 0.2, fill: cell.colour }));
+      else {
+        cells.push(el('g', { class: 'backing', 'data-round': row.number, 'data-stitch': cell.stitch + 1, ...spanAttrs(cell.span) }, [
+          el('use', { href: '#cell', x: cx, y, fill: cell.colour, stroke: '#000000', 'stroke-width': 1 }),
+          el('use', { href: `#sym-${cell.symbol}`, x: cx, y, color: cell.ink }),
+        ]));
       }
-      cells.push(el('g', { class: 'cell backing', 'data-round': row.number, 'data-stitch': cell.stitch + 1, 'data-yarn': cell.yarn, ...spanAttrs(cell.span) }, [
-        el('rect', { x: cx, y, width: c, height: c, fill: cell.colour, stroke: '#000000', 'stroke-width': 1 }),
-        el('use', { href: `#sym-${cell.symbol}`, x: cx, y, width: c, height: c, color: cell.ink }),
-      ]));
-    });
+      x += run;
+    }
+    // Ordinary floats of one yarn in a row share one path (dark underline first, so pale yarns show on white).
+    const plain = new Map<string, { colour: string; d: string; fy: number }>();
+    const labels: string[] = [];
     for (const f of row.floats) {
       const yi = yarnIndex.get(f.yarn) ?? 0;
       // Yarns float at different heights within the row so they do not hide each other.
       const fy = y + c * (yarnCount === 1 ? 0.5 : 0.3 + (0.4 * yi) / (yarnCount - 1));
-      if (f.isOverLimit) overCount++;
-      const lines = f.pieces.map((p) => {
-        const x1 = frame.colX(p.x1) + 2, x2 = frame.colX(p.x2 + 1) - 2;
-        return el('line', {
-          x1, y1: fy, x2, y2: fy, stroke: f.isOverLimit ? OVER : f.colour, 'stroke-width': f.isOverLimit ? 3 : 1.8, 'stroke-linecap': 'round',
-          'stroke-dasharray': f.isCaught ? '3 2' : null,
-        });
-      });
-      // A dark underline keeps pale yarns visible on white.
-      const under = f.isOverLimit ? [] : f.pieces.map((p) => el('line', {
-        x1: frame.colX(p.x1) + 2, y1: fy, x2: frame.colX(p.x2 + 1) - 2, y2: fy, stroke: '#000000', 'stroke-opacity': 0.55, 'stroke-width': 2.8, 'stroke-linecap': 'round',
-      }));
+      const d = f.pieces.map((p) => `M${num(frame.colX(p.x1) + 2)} ${num(fy)}H${num(frame.colX(p.x2 + 1) - 2)}`).join('');
       const widest = f.pieces.reduce((a, b) => (b.x2 - b.x1 > a.x2 - a.x1 ? b : a));
       const shown = f.isCaught ? `≤${f.caughtLongest}` : f.stitches >= 2 ? String(f.stitches) : '';
-      const label = shown === '' ? '' : text({
-        x: (frame.colX(widest.x1) + frame.colX(widest.x2 + 1)) / 2, y: fy - 2, 'font-size': Math.min(9, c * 0.55), 'text-anchor': 'middle',
-        fill: f.isOverLimit ? OVER : '#111111', 'font-weight': f.isOverLimit ? 700 : 400,
-      }, shown);
-      floats.push(el('g', {
-        class: f.isOverLimit ? 'float over-limit' : 'float', 'data-round': row.number, 'data-yarn': f.yarn, 'data-stitches': f.stitches,
-      }, [...under, ...lines, label]));
+      const lx = (frame.colX(widest.x1) + frame.colX(widest.x2 + 1)) / 2;
+      if (f.isOverLimit || f.isCaught) {
+        if (f.isOverLimit) overCount++;
+        floats.push(el('g', { class: f.isOverLimit ? 'float over-limit' : 'float caught', 'data-round': row.number, 'data-yarn': f.yarn, 'data-stitches': f.stitches }, [
+          el('path', { d, stroke: f.isOverLimit ? OVER : f.colour, 'stroke-width': f.isOverLimit ? 3 : 1.8, 'stroke-linecap': 'round', 'stroke-dasharray': f.isCaught ? '3 2' : null }),
+          text({ x: lx, y: fy - 2, 'font-size': Math.min(9, c * 0.55), 'text-anchor': 'middle', fill: f.isOverLimit ? OVER : '#111111', 'font-weight': f.isOverLimit ? 700 : null }, shown),
+        ]));
+        continue;
+      }
+      const entry = plain.get(f.yarn) ?? { colour: f.colour, d: '', fy };
+      entry.d += d;
+      plain.set(f.yarn, entry);
+      if (shown) labels.push(text({ x: lx, y: fy - 2 }, shown));
     }
+    for (const [yarn, p] of plain) {
+      floats.push(el('g', { class: 'float', 'data-round': row.number, 'data-yarn': yarn, fill: 'none', 'stroke-linecap': 'round' }, [
+        el('path', { d: p.d, stroke: '#000000', 'stroke-opacity': 0.55, 'stroke-width': 2.8 }),
+        el('path', { d: p.d, stroke: p.colour, 'stroke-width': 1.8 }),
+      ]));
+    }
+    if (labels.length) floats.push(el('g', { class: 'float-lengths', 'font-size': Math.min(9, c * 0.55), 'text-anchor': 'middle', fill: '#111111' }, labels));
   });
   const limitText = model.floatLimitStitches === null
     ? 'no gauge declared, so floats are not measured against a limit'
@@ -82,7 +92,7 @@ export function renderBackSvg(model: ChartModel, options: ChartDrawOptions = {})
   const height = frame.legendTop + key.height;
   const title = `${model.title ?? 'Untitled pattern'}, size ${model.size}: back of the work`;
   return svgDocument(frame.width, height, title, [
-    symbolDefs(backSymbols),
+    symbolDefs(backSymbols, c),
     el('rect', { x: 0, y: 0, width: frame.width, height, fill: '#ffffff' }),
     heading(model, frame, 'back of the work'),
     el('g', { class: 'cells' }, cells),

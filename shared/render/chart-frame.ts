@@ -52,15 +52,20 @@ export function frameFor(model: ChartModel, options: ChartDrawOptions, minWidth:
   };
 }
 
-/** <defs>: one <symbol> per symbol used (drawn in currentColor) and the backing-stitch hatch. */
-export function symbolDefs(ids: readonly SymbolId[]): string {
-  const parts: string[] = [];
+/**
+ * <defs>: one group per symbol used, drawn in currentColor at cell size
+ * (placed with <use href="#sym-ID" x y color>), a cell-sized square `#cell`
+ * (placed with <use href="#cell" x y fill>: it keeps the output small), and
+ * the backing-stitch hatch.
+ */
+export function symbolDefs(ids: readonly SymbolId[], cell: number): string {
+  const parts: string[] = [el('rect', { id: 'cell', width: cell, height: cell })];
   for (const id of ids) {
     const d = symbolDef(id);
     const paths: string[] = [];
     if (d.stroke) paths.push(el('path', { d: d.stroke, fill: 'none', stroke: 'currentColor', 'stroke-width': 0.09, 'stroke-linecap': 'round', 'stroke-linejoin': 'round' }));
     if (d.fill) paths.push(el('path', { d: d.fill, fill: 'currentColor' }));
-    parts.push(el('symbol', { id: `sym-${id}`, viewBox: '0 0 1 1' }, paths.length ? paths : ''));
+    parts.push(el('g', { id: `sym-${id}`, transform: `scale(${cell})` }, paths.length ? paths : ''));
   }
   // Backing cells: a light diagonal hatch over the yarn colour says "behind the fabric".
   parts.push(el('pattern', { id: 'backing-hatch', width: 4, height: 4, patternUnits: 'userSpaceOnUse', patternTransform: 'rotate(45)' },
@@ -136,12 +141,12 @@ export function legend(model: ChartModel, frame: Frame, extra: readonly { swatch
   const parts: string[] = [];
   let y = frame.legendTop;
   const x = 8;
-  const box = 14;
+  const box = frame.cell;
   parts.push(text({ x, y: y - 8, 'font-size': 11, 'font-weight': 600 }, 'Key'));
   for (const id of model.legend) {
     const d = symbolDef(id);
     parts.push(el('rect', { x, y, width: box, height: box, fill: id === 'no-stitch' ? noStitchFill : '#ffffff', stroke: '#777777', 'stroke-width': 0.6 }));
-    if (id !== 'no-stitch' && id !== 'knit') parts.push(el('use', { href: `#sym-${id}`, x, y, width: box, height: box, color: '#000000' }));
+    if (id !== 'no-stitch' && id !== 'knit') parts.push(el('use', { href: `#sym-${id}`, x, y, color: '#000000' }));
     const label = d.abbreviation ? `${d.abbreviation}: ${d.meaning}` : d.meaning;
     parts.push(text({ x: x + box + 6, y: y + box - 3, 'font-size': 10 }, label));
     y += box + 5;
@@ -174,7 +179,7 @@ export function legendWidth(model: ChartModel): number {
 }
 
 /** Data attributes that tie a drawn cell to its source (click-to-source). */
-export function spanAttrs(span: { from: number; to: number; line: number } | null): Record<string, number | null> {
-  return span ? { 'data-from': span.from, 'data-to': span.to, 'data-line': span.line } : { 'data-from': null, 'data-to': null, 'data-line': null };
+export function spanAttrs(span: { from: number; to: number } | null): Record<string, number | null> {
+  return span ? { 'data-from': span.from, 'data-to': span.to } : { 'data-from': null, 'data-to': null };
 }
 

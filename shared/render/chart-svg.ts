@@ -3,8 +3,9 @@
  * stitch's symbol in black or white ink (whichever contrasts more with the
  * yarn), backing stitches hatched, no-stitch cells grey, markers as red
  * lines, round/row numbers on the side each is read from, and a legend of
- * the symbols used. Every stitch cell carries data-from/data-to/data-line
- * (its source span) plus data-round and data-stitch for click-to-source.
+ * the symbols used. Every stitch cell carries data-from/data-to (its source
+ * span, UTF-16 offsets, `to` exclusive) and data-stitch (1-based, in working
+ * order); its row group carries data-round: enough for click-to-source.
  *
  * Output is a complete, well-formed SVG document (all text escaped).
  */
@@ -16,33 +17,37 @@ import { el, svgDocument } from './svg';
 export function renderChartSvg(model: ChartModel, options: ChartDrawOptions = {}): string {
   const frame = frameFor(model, options, legendWidth(model));
   const c = frame.cell;
-  const cells: string[] = [];
+  const rows: string[] = [];
   model.rows.forEach((row, i) => {
     const y = frame.rowY(i);
+    const cells: string[] = [];
     row.cells.forEach((cell, x) => {
       const cx = frame.colX(x);
       if (!cell) {
-        cells.push(el('rect', { x: cx, y, width: c, height: c, fill: NO_STITCH_FILL, class: 'no-stitch' }));
+        cells.push(el('use', { href: '#cell', x: cx, y, fill: NO_STITCH_FILL }));
         return;
       }
-      const parts = [el('rect', { x: cx, y, width: c, height: c, fill: cell.colour })];
-      if (cell.isBacking) parts.push(el('rect', { x: cx, y, width: c, height: c, fill: 'url(#backing-hatch)' }));
-      if (cell.symbol !== 'knit') parts.push(el('use', { href: `#sym-${cell.symbol}`, x: cx, y, width: c, height: c, color: cell.ink }));
-      cells.push(el('g', {
-        class: cell.isBacking ? 'cell backing' : 'cell', 'data-round': row.number, 'data-stitch': cell.isBoundOff ? null : cell.stitch + 1,
-        'data-yarn': cell.yarn, ...spanAttrs(cell.span),
-      }, parts));
+      const data = { 'data-stitch': cell.isBoundOff ? null : cell.stitch + 1, ...spanAttrs(cell.span) };
+      if (cell.symbol === 'knit' && !cell.isBacking) {
+        cells.push(el('use', { href: '#cell', x: cx, y, fill: cell.colour, ...data }));
+        return;
+      }
+      const parts = [el('use', { href: '#cell', x: cx, y, fill: cell.colour })];
+      if (cell.isBacking) parts.push(el('use', { href: '#cell', x: cx, y, fill: 'url(#backing-hatch)' }));
+      if (cell.symbol !== 'knit') parts.push(el('use', { href: `#sym-${cell.symbol}`, x: cx, y, color: cell.ink }));
+      cells.push(el('g', { class: cell.isBacking ? 'backing' : null, ...data }, parts));
     });
+    rows.push(el('g', { class: 'row', 'data-round': row.number, 'data-side': row.side }, cells));
   });
   const grid = gridLines(model.width, model.rows.length, frame);
   const key = legend(model, frame);
   const height = frame.legendTop + key.height;
   const title = `${model.title ?? 'Untitled pattern'}, size ${model.size}: chart, front`;
   return svgDocument(frame.width, height, title, [
-    symbolDefs(model.legend),
+    symbolDefs(model.legend, c),
     el('rect', { x: 0, y: 0, width: frame.width, height, fill: '#ffffff' }),
     heading(model, frame, 'chart, front (right side)'),
-    el('g', { class: 'cells' }, cells),
+    el('g', { class: 'cells' }, rows),
     grid,
     markerLines(model, frame),
     rowNumbers(model, frame),

@@ -46,8 +46,8 @@ const DEFS: readonly SymbolDef[] = [
   { id: 'purl', abbreviation: 'p', meaning: 'purl on RS, knit on WS', stroke: '', fill: dot(0.5, 0.5, 0.13) },
   { id: 'knit-tbl', abbreviation: 'k tbl', meaning: 'knit through the back loop on RS, purl through the back loop on WS', stroke: 'M0.5 0.88V0.5M0.5 0.5C0.2 0.5 0.2 0.14 0.5 0.14C0.8 0.14 0.8 0.5 0.5 0.5', fill: '' },
   { id: 'purl-tbl', abbreviation: 'p tbl', meaning: 'purl through the back loop on RS, knit through the back loop on WS', stroke: 'M0.5 0.7V0.45M0.5 0.45C0.25 0.45 0.25 0.14 0.5 0.14C0.75 0.14 0.75 0.45 0.5 0.45', fill: dot(0.5, 0.84, 0.08) },
-  { id: 'slip', abbreviation: 'sl', meaning: 'slip purlwise with yarn on the wrong side', stroke: 'M0.22 0.2L0.5 0.82L0.78 0.2', fill: '' },
-  { id: 'slip-wyif', abbreviation: 'sl wyif', meaning: 'slip purlwise with yarn on the right side', stroke: 'M0.22 0.14L0.5 0.7L0.78 0.14M0.2 0.86H0.8', fill: '' },
+  { id: 'slip', abbreviation: 'sl', meaning: 'slip purlwise with the yarn on the wrong side (wyib on RS, wyif on WS)', stroke: 'M0.22 0.2L0.5 0.82L0.78 0.2', fill: '' },
+  { id: 'slip-wyif', abbreviation: 'sl wyif', meaning: 'slip purlwise with the yarn on the right side (wyif on RS, wyib on WS)', stroke: 'M0.22 0.14L0.5 0.7L0.78 0.14M0.2 0.86H0.8', fill: '' },
   { id: 'yo', abbreviation: 'yo', meaning: 'yarn over', stroke: 'M0.22 0.5a0.28 0.28 0 1 0 0.56 0a0.28 0.28 0 1 0 -0.56 0', fill: '' },
   { id: 'm1', abbreviation: 'm1', meaning: 'make one', stroke: 'M0.2 0.8V0.22L0.5 0.55L0.8 0.22V0.8', fill: '' },
   { id: 'm1l', abbreviation: 'm1l', meaning: 'make one leaning left', stroke: 'M0.22 0.82V0.2L0.78 0.82', fill: '' },
@@ -91,6 +91,8 @@ export function symbolDef(id: SymbolId): SymbolDef {
 const RS_OF_WS: Readonly<Record<string, string>> = {
   k: 'p', p: 'k', 'k tbl': 'p tbl', 'p tbl': 'k tbl', k2tog: 'p2tog', p2tog: 'k2tog', ssk: 'ssp', ssp: 'ssk',
   kfb: 'pfb', pfb: 'kfb',
+  // A slip with the yarn in front of a WS row leaves the strand on the wrong side, as a RS slip wyib does.
+  sl: 'sl wyif', 'sl wyif': 'sl',
 };
 
 /** The stitch as it looks on the right side, given what was worked on `side`. */
