@@ -1,7 +1,8 @@
 /** Texts of the mails we send, in plain text and simple HTML. */
 import type { MailMessage } from './mailer.ts';
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+/** Escapes text for HTML element content and attribute values. */
+export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 
 const roleWords: Record<string, string> = {
   editor: 'technical editor',
@@ -9,7 +10,8 @@ const roleWords: Record<string, string> = {
   knitter: 'knitter',
 };
 
-function layout(paragraphs: string[], link: string, linkLabel: string, footer: string): string {
+/** The common mail body: paragraphs, one link, a footer. */
+export function layout(paragraphs: string[], link: string, linkLabel: string, footer: string): string {
   const ps = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join('\n');
   return `<!doctype html><html><body style="font-family:sans-serif;max-width:36em;line-height:1.5">
 ${ps}

@@ -1,8 +1,8 @@
 /** Review comments: /api/patterns/:id/revisions/:number/comments and /api/patterns/:id/comments/:commentId. */
 import { Router } from 'express';
-import { createCommentBody, updateCommentBody } from '../../shared/api-schemas.ts';
+import { createCommentBody, replyBody, updateCommentBody } from '../../shared/api-schemas.ts';
 import { requireUser } from '../services/access.ts';
-import { addComment, listComments, setResolved } from '../services/comments.ts';
+import { addComment, listComments, replyToComment, setResolved } from '../services/comments.ts';
 import { intParam, parseBody } from './params.ts';
 
 /** Comment routes; access is decided by the `comment` action of the policy. */
@@ -20,6 +20,11 @@ export function commentRoutes(): Router {
     requireUser(req.user);
     const body = parseBody(updateCommentBody, req.body);
     res.json({ comment: await setResolved(req.user, intParam(req.params.id), intParam(req.params.commentId), body.resolved) });
+  });
+  r.post('/patterns/:id/comments/:commentId/replies', async (req, res) => {
+    requireUser(req.user);
+    const body = parseBody(replyBody, req.body);
+    res.status(201).json({ comment: await replyToComment(req.user, intParam(req.params.id), intParam(req.params.commentId), body.body) });
   });
   return r;
 }

@@ -3,7 +3,8 @@ import { Router } from 'express';
 import { changeStatusBody, createPatternBody, saveRevisionBody } from '../../shared/api-schemas.ts';
 import type { ServerContext } from '../context.ts';
 import { authorizeCreatePattern, requireUser } from '../services/access.ts';
-import { changeStatus, createPattern, getPattern, getRevision, listPatterns, listRevisions, saveRevision } from '../services/patterns.ts';
+import { createPattern, getPattern, getRevision, listPatterns, listRevisions, saveRevision } from '../services/patterns.ts';
+import { changeStatusByTarget } from '../services/review.ts';
 import { intParam, parseBody } from './params.ts';
 
 /** Pattern and revision routes; every pattern route goes through the access policy. */
@@ -42,7 +43,9 @@ export function patternRoutes(ctx: ServerContext): Router {
   r.post('/patterns/:id/status', async (req, res) => {
     requireUser(req.user);
     const body = parseBody(changeStatusBody, req.body);
-    res.json({ pattern: await changeStatus(ctx, req.user, intParam(req.params.id), body.status) });
+    // One status machine for both this route and the review routes (services/review-status.ts).
+    const { status, ...input } = body;
+    res.json(await changeStatusByTarget(ctx, req.user, intParam(req.params.id), status, input));
   });
 
   return r;

@@ -34,7 +34,11 @@ export type PatternAction =
   | 'release'           // owner: approved -> released
   | 'upload'
   | 'sell'              // owner: list in the shop, see sales, refund
-  | 'view-uploads';
+  | 'view-uploads'
+  | 'view-review'       // the review log
+  | 'export'            // export a revision the role may read
+  | 'track-progress'    // keep one's place in a release
+  | 'report-erratum';   // an erratum on a round of a release
 
 /** Which pattern roles may take each action (the matrix the role test walks). */
 export const POLICY: Readonly<Record<PatternAction, readonly PatternRole[]>> = {
@@ -50,6 +54,10 @@ export const POLICY: Readonly<Record<PatternAction, readonly PatternRole[]>> = {
   upload: ['owner'],
   'view-uploads': ['owner', 'editor', 'test-knitter', 'knitter'],
   sell: ['owner'],
+  'view-review': ['owner', 'editor'],
+  export: ['owner', 'editor', 'test-knitter', 'knitter'],
+  'track-progress': ['owner', 'editor', 'test-knitter', 'knitter'],
+  'report-erratum': ['editor', 'test-knitter', 'knitter'],
 };
 
 /** True when `role` may see the pattern at all (knitters only after a release). */
@@ -68,6 +76,16 @@ export function isAllowed(role: PatternRole | null, action: PatternAction, patte
 export function visibleRevisions(role: PatternRole, pattern: Pick<Pattern, 'latestRevision' | 'releasedRevision'>): 'all' | number[] {
   if (role === 'owner' || role === 'editor') return 'all';
   return pattern.releasedRevision ? [pattern.releasedRevision] : [];
+}
+
+/**
+ * True when `role` may read revision `number`: the owner and editors any,
+ * test knitters and knitters only released ones (`released`: the numbers of
+ * every release of the pattern; the newest release counts even when not listed).
+ */
+export function canReadRevision(role: PatternRole, pattern: Pick<Pattern, 'releasedRevision'>, number: number, released: readonly number[]): boolean {
+  if (role === 'owner' || role === 'editor') return true;
+  return number === pattern.releasedRevision || released.includes(number);
 }
 
 /** Newest revision number `role` may read (0 when none). */

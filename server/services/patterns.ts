@@ -6,11 +6,11 @@
  * unique index on (patternId, number) backs it up.
  */
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
-import { SOURCE_MAX_BYTES, type ApiPattern, type ApiPatternListItem, type ApiRevision, type PatternStatusName } from '../../shared/api-schemas.ts';
+import { SOURCE_MAX_BYTES, type ApiPattern, type ApiPatternListItem, type ApiRevision } from '../../shared/api-schemas.ts';
 import type { ServerContext } from '../context.ts';
 import { Membership, Pattern, Revision, User } from '../models/index.ts';
-import { authorizePattern, canSee, entitledPatternIds, isAllowed, newestVisibleRevision, visibleRevisions, type PatternAction, type PatternRole } from './access.ts';
-import { AppError, badRequest, conflict, forbidden, notFound, tooLarge } from './errors.ts';
+import { authorizePattern, canSee, entitledPatternIds, newestVisibleRevision, visibleRevisions, type PatternRole } from './access.ts';
+import { AppError, conflict, notFound, tooLarge } from './errors.ts';
 import { toApiRevision, toPerson } from './serialize.ts';
 import { summarizeSource } from './compile-summary.ts';
 
@@ -159,44 +159,4 @@ export async function getRevision(user: User | null, patternId: number, number: 
   const revision = await Revision.findOne({ where: { patternId: pattern.id, number }, include: [withAuthor] });
   if (!revision) throw notFound('Revision');
   return toApiRevision(revision, true);
-}
-
-/**
- * Moves a pattern through review. Owner: draft -> in-review (submit),
- * in-review -> draft (withdraw), approved -> released. Editor: in-review ->
- * approved (records the revision approved) or -> draft (changes requested).
- */
-export async function changeStatus(ctx: ServerContext, user: User | null, patternId: number, status: PatternStatusName): Promise<ApiPattern> {
-  const { pattern: found, role } = await authorizePattern(user, patternId, 'view');
-  // Which policy action this request is: approving and asking for changes are reviews; the rest is the owner's.
-  const action: PatternAction =
-    status === 'approved' ? 'review' : status === 'released' ? 'release' : status === 'draft' && role === 'editor' ? 'review' : 'submit-for-review';
-  if (!isAllowed(role, action, found)) throw forbidden(`As ${role} on this pattern you may not set it to ${status}.`);
-  return ctx.sequelize.transaction(async (t) => {
-    const pattern = await Pattern.findByPk(found.id, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!pattern) throw notFound('Pattern');
-    const from = pattern.status;
-    const move = `${role}:${from}->${status}`;
-    switch (move) {
-      case 'owner:draft->in-review':
-      case 'owner:approved->in-review':
-      case 'owner:released->in-review':
-      case 'owner:in-review->draft':
-        break;
-      case 'editor:in-review->approved':
-        pattern.approvedRevision = pattern.latestRevision;
-        break;
-      case 'editor:in-review->draft':
-        break;
-      case 'owner:approved->released':
-        pattern.releasedRevision = pattern.approvedRevision ?? pattern.latestRevision;
-        break;
-      default:
-        throw badRequest('invalid-status-change', `A ${role} cannot move a pattern from ${from} to ${status}.`);
-    }
-    pattern.status = status;
-    await pattern.save({ transaction: t });
-    const owner = await User.findByPk(pattern.ownerId, { transaction: t });
-    return toApiPattern(pattern, role, owner);
-  });
 }
