@@ -180,6 +180,7 @@ class LoopParser extends CstParser {
       { ALT: () => this.SUBRULE(this.chartOp) },
       { ALT: () => this.SUBRULE(this.markOp) },
       { ALT: () => this.SUBRULE(this.unmarkOp) },
+      { ALT: () => this.SUBRULE(this.slipMarkerOp) },
       { ALT: () => this.SUBRULE(this.catchOp) },
       { ALT: () => this.SUBRULE(this.raiseOp) },
       { ALT: () => this.SUBRULE(this.carryOp) },
@@ -249,13 +250,18 @@ class LoopParser extends CstParser {
   });
 
   public markOp = this.RULE('markOp', () => {
-    this.CONSUME(T.Mark);
+    this.OR([{ ALT: () => this.CONSUME(T.Mark) }, { ALT: () => this.CONSUME(T.Pm) }]);
     this.CONSUME(T.Name);
   });
 
   public unmarkOp = this.RULE('unmarkOp', () => {
-    this.CONSUME(T.Unmark);
+    this.OR([{ ALT: () => this.CONSUME(T.Unmark) }, { ALT: () => this.CONSUME(T.Rm) }]);
     this.CONSUME(T.Name);
+  });
+
+  public slipMarkerOp = this.RULE('slipMarkerOp', () => {
+    this.CONSUME(T.Sm);
+    this.OPTION(() => this.CONSUME(T.Name));
   });
 
   public catchOp = this.RULE('catchOp', () => {

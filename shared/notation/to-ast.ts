@@ -158,6 +158,8 @@ export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; dia
         const nm = name(tok(node, 'Name'));
         return nm ? { type: kind === 'markOp' ? 'mark' : 'unmark', name: nm, span } : null;
       }
+      // sm: markers are slipped automatically; the word is accepted for the trade's habit and adds nothing.
+      case 'slipMarkerOp': return null;
       case 'catchOp': case 'raiseOp': {
         const y = name(tok(node, 'Name'));
         return y ? { type: kind === 'catchOp' ? 'catch' : 'raise', yarn: y, span } : null;

@@ -61,6 +61,10 @@ export const Last = keyword('last');
 export const Marker = keyword('marker');
 export const Mark = keyword('mark');
 export const Unmark = keyword('unmark');
+/** Trade words for markers: pm (place), sm (slip), rm (remove). */
+export const Pm = keyword('pm');
+export const Sm = keyword('sm');
+export const Rm = keyword('rm');
 export const Times = keyword('times');
 export const Catch = keyword('catch');
 export const Raise = keyword('raise');
