@@ -9,10 +9,7 @@
 import { compile, highlightTokens, KEYWORDS, STITCH_NAMES, type CompileResult } from '../../shared';
 import type { ChartMessage, CompiledView, HighlightToken, InstructionsMessage, SourceMessage, ViewSettings, WorkerAnswer, WorkerMessage } from './protocol';
 
-const loadChart = () => Promise.all([
-  import('../../shared/render/chart-model'), import('../../shared/render/chart-svg'), import('../../shared/render/back-svg'),
-]);
-const loadInstructions = () => import('../../shared/render/instructions');
+const loadRenderers = () => import('./renderers');
 
 const post = (m: WorkerAnswer) => (self as unknown as Worker).postMessage(m);
 let latest: SourceMessage | null = null;
@@ -45,7 +42,7 @@ async function drawChart(): Promise<void> {
   const base = { type: 'chart' as const, id, size: size ?? '', side: want.side, cell: want.cell };
   let answer: ChartMessage;
   try {
-    const [{ buildChart }, { renderChartSvg }, { renderBackSvg }] = await loadChart();
+    const { buildChart, renderChartSvg, renderBackSvg } = await loadRenderers();
     const model = size ? buildChart(result, size) : null;
     answer = !model || model.rows.length === 0
       ? { ...base, svg: null, problem: NOTHING_YET }
@@ -66,7 +63,7 @@ async function writeViews(): Promise<void> {
   const base = { type: 'instructions' as const, id, size: size ?? '' };
   let answer: InstructionsMessage;
   try {
-    const { writeInstructions } = await loadInstructions();
+    const { writeInstructions } = await loadRenderers();
     const ins = size ? writeInstructions(source, result, size) : null;
     answer = ins && ins.entries.length ? { ...base, instructions: ins } : { ...base, instructions: null, problem: NOTHING_YET };
   } catch (err) {
