@@ -74,7 +74,8 @@ const patternGen = fc.record({
 });
 
 /** Builds a source whose every round adds up: the listed stitches (only as far as they fit), then "k to end". */
-function buildSource(p: fc.Infer<typeof patternGen>): string {
+type Pattern = typeof patternGen extends fc.Arbitrary<infer T> ? T : never;
+function buildSource(p: Pattern): string {
   let n = p.castOn;
   const lines = [`${HEADER}`, `cast on ${p.castOn} in A`];
   p.rounds.forEach((r, i) => {
