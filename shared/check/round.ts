@@ -9,6 +9,7 @@ import type { Span } from '../types';
 import { START_SEGMENT, type LadderRun, type Machine, type MarkerPos, type SegmentRange } from './machine';
 import { execOps } from './ops';
 import { LIMITS } from './context';
+import { leftNeedleAsFound, roundKey } from './reuse';
 import { measureFloats, type FloatRun } from './floats';
 import { FLAG } from './store';
 import type { PlannedRound, LineRange } from './plan';
@@ -75,10 +76,23 @@ export function workRounds(
   let prevOff = 0, prevLen = castOn.count, prevMarkers: MarkerPos[] = [], prevSide: 'RS' | 'WS' = flat ? 'WS' : 'RS';
   const yarnCount = ctx.head.yarns.length;
   const defaultYarn = castOn.yarn;
+  let prevKey: string | null = null;
+  let prevStable = false;
 
   for (const p of plan) {
     if (m.aborted) break;
     m.logical += prevLen;
+    const key = flat ? null : roundKey(p, m.charts);
+    if (key !== null && key === prevKey && prevStable) {
+      // Same instructions on an unchanged needle: the same round again (see reuse.ts).
+      if (m.logical + prevLen > LIMITS.stitchesPerSize) {
+        m.abort(p.whole?.span ?? records[records.length - 1].span, `more than ${LIMITS.stitchesPerSize.toLocaleString('en')} stitches would be worked`);
+        break;
+      }
+      records.push({ ...records[records.length - 1], number: p.number, side: p.side });
+      continue;
+    }
+    const reported = ctx.reporter.list.length;
     const ws = p.side === 'WS';
     let flags = store.flags.subarray(prevOff, prevOff + prevLen);
     let yarn = store.yarn.subarray(prevOff, prevOff + prevLen);
@@ -152,6 +166,8 @@ export function workRounds(
       number: p.number, side: p.side, offset, count, front: m.front, backing: m.backing, start, worked,
       markers: m.markersOut, segments: segs, floats, lines, span, note,
     });
+    prevKey = key;
+    prevStable = key !== null && !m.aborted && ctx.reporter.list.length === reported && leftNeedleAsFound(m, markers, offset, count);
     prevOff = offset; prevLen = count; prevMarkers = m.markersOut; prevSide = p.side;
   }
   void prevSide;
