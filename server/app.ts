@@ -21,6 +21,7 @@ import { authRoutes } from './routes/auth.ts';
 import { commentRoutes } from './routes/comments.ts';
 import { devRoutes } from './routes/dev.ts';
 import { diffRoutes } from './routes/diff.ts';
+import { exportRoutes } from './routes/exports.ts';
 import { healthRoutes } from './routes/health.ts';
 import { memberRoutes } from './routes/members.ts';
 import { patternRoutes } from './routes/patterns.ts';
@@ -125,6 +126,7 @@ export function createApp(opts: AppOptions): Express {
   api.use(reviewRoutes(ctx));
   api.use(releaseRoutes(ctx));
   api.use(diffRoutes());
+  api.use(exportRoutes());
   api.use(adminRoutes());
   if (env === 'development' || env === 'test') api.use(devRoutes(opts.outbox ?? null));
   api.use((req, _res, next) => next(new AppError(404, 'not-found', `There is no API route ${req.method} ${req.baseUrl}${req.path}.`)));

@@ -1,0 +1,42 @@
+/**
+ * The export worker thread: receives `{id, input, format}` messages, runs
+ * each export (runExport) one after another, and answers with progress,
+ * the finished bytes (transferred, not copied) or a failure. Compiling and
+ * drawing a big pattern takes seconds; here it never blocks the server's
+ * event loop.
+ */
+import { parentPort } from 'node:worker_threads';
+import { runExport, type ExportFormat } from './build.ts';
+import { ExportRefusal, type ExportInput } from './document.ts';
+
+/** A request to the worker. */
+export interface WorkerRequest { id: string; input: ExportInput; format: ExportFormat }
+/** An answer from the worker. */
+export type WorkerAnswer =
+  | { id: string; type: 'progress'; progress: number }
+  | { id: string; type: 'done'; bytes: Uint8Array; contentType: string; filename: string }
+  | { id: string; type: 'failed'; code: string; message: string; userError: boolean };
+
+const port = parentPort;
+if (port) {
+  port.on('message', (req: WorkerRequest) => {
+    void (async () => {
+      try {
+        const file = await runExport(req.input, req.format, (progress) => port.postMessage({ id: req.id, type: 'progress', progress } satisfies WorkerAnswer));
+        const bytes = new Uint8Array(file.bytes.buffer, file.bytes.byteOffset, file.bytes.byteLength);
+        port.postMessage({ id: req.id, type: 'done', bytes, contentType: file.contentType, filename: file.filename } satisfies WorkerAnswer);
+      } catch (err) {
+        const userError = err instanceof ExportRefusal;
+        const answer: WorkerAnswer = {
+          id: req.id,
+          type: 'failed',
+          code: userError ? err.code : 'export-failed',
+          message: userError ? err.message : 'The export could not be made. Nothing was changed; please try again.',
+          userError,
+        };
+        if (!userError) console.error('export failed:', err);
+        port.postMessage(answer);
+      }
+    })();
+  });
+}
