@@ -20,6 +20,7 @@ import type { CompileResult, Span } from '../index';
 import { FLAG, type RoundRecord, type StitchLevel } from '../check';
 import { parseSource, STITCHES, type Graded, type LadderLine, type PatternAst, type RoundLine } from '../notation';
 import { ordinal } from '../measure';
+import { groupRounds, type RoundWords } from './grouping';
 import { namesYarns, opsPhrase, WORD_MEANINGS, type KeyEntry, type PhraseContext } from './phrases';
 
 /** Counts after a round. */
@@ -107,29 +108,12 @@ export function writeInstructions(source: string, result: CompileResult, size?: 
   mark(flat ? 'RS' : 'rnd');
   if (flat) mark('WS');
   mark('sts');
-  const entries: InstructionEntry[] = [];
-  let prev = { front: model.castOn, backing: 0 };
-  for (let i = 0; i < perRound.length; i++) {
-    const { rec, text } = perRound[i];
-    const changes = rec.front !== prev.front || rec.backing !== prev.backing;
-    let j = i;
-    while (j + 1 < perRound.length) {
-      const next = perRound[j + 1];
-      if (next.text !== text || next.rec.note !== rec.note || next.rec.front !== rec.front || next.rec.backing !== rec.backing) break;
-      j++;
-    }
-    const first = rec.number, last = perRound[j].rec.number;
-    const single = first === last;
-    const side = flat && single ? rec.side : null;
-    const label = single ? `${word} ${first}${side ? ` (${side})` : ''}` : `${word}s ${first}–${last}`;
-    entries.push({
-      first, last, side, label, text, note: rec.note,
-      counts: changes ? { front: rec.front, backing: rec.backing, total: rec.front + rec.backing } : null,
-      span: rec.span,
-    });
-    prev = { front: rec.front, backing: rec.backing };
-    i = j;
-  }
+  const words: RoundWords[] = perRound.map(({ rec, text }) => ({ number: rec.number, side: rec.side, text, note: rec.note, front: rec.front, backing: rec.backing, span: rec.span }));
+  const entries: InstructionEntry[] = groupRounds(words, model.castOn, flat).map((g) => ({
+    ...g,
+    label: g.first === g.last ? `${word} ${g.first}${g.side ? ` (${g.side})` : ''}` : `${word}s ${g.first}–${g.last}`,
+  }));
+  if (entries.some((e) => e.text.startsWith('Rep '))) mark('rep');
   const castOnYarn = ast.castOn?.yarn?.name ?? defaultYarn;
   const castOn = flat
     ? `Cast on ${model.castOn} sts with ${castOnYarn}. Row 1 is a right-side (RS) row.`

@@ -105,6 +105,9 @@ export function opPhrase(op: Op, ctx: PhraseContext, depth = 0): string {
       if (op.repeat.kind === 'once') return `${body}${yarnNote}`;
       if (op.repeat.kind === 'times') {
         const n = ctx.graded(op.repeat.n);
+        const only = op.ops.length === 1 ? op.ops[0] : null;
+        // A chart worked once, a number of times: "work row 3 of chart lantern twice".
+        if (only?.type === 'chart' && only.once && !yarnNote) return body.replace(/ once$/, ` ${n === 1 ? 'once' : n === 2 ? 'twice' : `${n} times`}`);
         return `[${body}]${yarnNote} ${n === 1 ? 'once' : n === 2 ? 'twice' : `${n} times`}`;
       }
       use(ctx, 'rep');

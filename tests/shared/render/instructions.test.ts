@@ -37,6 +37,14 @@ describe('written instructions', () => {
     expect(t).toMatch(/\n {2}bst: backing stitch/);
   });
 
+  it('writes consecutive chart rows as one range and a repeated block once ("Rep rows ...")', () => {
+    const { source: cowl, result: cr } = demo('tidepool-cowl.loop');
+    expect(formatInstructionsText(writeInstructions(cowl, cr, 'M')!)).toContain('Rnds 11–16: Work rows 1–6 of chart wave to end, repeating it across.');
+    const { source: tote, result: tr } = demo('quarry-tote-panel.loop');
+    const t = formatInstructionsText(writeInstructions(tote, tr)!);
+    expect(t).toContain('Row 11 (RS): [k5, work bst] 7 times, k to end.\nRow 12 (WS): [p5, work bst] 7 times, p to end.\nRows 13–22: Rep rows 11–12 5 more times.');
+  });
+
   it('keeps round notes and lists only the abbreviations used in the key', () => {
     const src = `${HEADER}\ncast on 8 in A\nround 1: k to end note "change to the larger needle"\nround 2: p to end`;
     const ins = writeInstructions(src, compile(src))!;
