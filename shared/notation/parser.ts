@@ -9,7 +9,7 @@
  * `cast on`, `round`/`rows` lines with operation lists, `chart` blocks and
  * `ladder` lines. Newlines carry no meaning; commas separate operations.
  */
-import { CstParser, EOF, type CstNode, type IToken, type TokenType } from 'chevrotain';
+import { CstParser, EOF, type CstNode, type IOrAlt, type IToken, type TokenType } from 'chevrotain';
 import * as T from './tokens';
 
 function describe(t: TokenType): string {
@@ -48,12 +48,19 @@ class LoopParser extends CstParser {
     this.performSelfAnalysis();
   }
 
+  // Alternatives of each OR, built once: creating them on every call is the
+  // main cost of parsing (chevrotain's own performance advice).
+  private altCache: IOrAlt<unknown>[][] = [];
+  private alts(id: number, make: () => IOrAlt<unknown>[]): IOrAlt<unknown>[] {
+    return (this.altCache[id] ??= make());
+  }
+
   public pattern = this.RULE('pattern', () => {
     this.MANY(() => this.SUBRULE(this.statement));
   });
 
   public statement = this.RULE('statement', () => {
-    this.OR([
+    this.OR(this.alts(1, () => [
       { ALT: () => this.SUBRULE(this.titleLine) },
       { ALT: () => this.SUBRULE(this.designerLine) },
       { ALT: () => this.SUBRULE(this.sizesLine) },
@@ -65,7 +72,7 @@ class LoopParser extends CstParser {
       { ALT: () => this.SUBRULE(this.roundLine) },
       { ALT: () => this.SUBRULE(this.chartBlock) },
       { ALT: () => this.SUBRULE(this.ladderLine) },
-    ]);
+    ]));
   });
 
   public titleLine = this.RULE('titleLine', () => {
@@ -81,28 +88,28 @@ class LoopParser extends CstParser {
   public sizesLine = this.RULE('sizesLine', () => {
     this.CONSUME(T.Sizes);
     this.AT_LEAST_ONE(() => {
-      this.OR([
+      this.OR(this.alts(2, () => [
         { ALT: () => this.CONSUME(T.Name, { LABEL: 'size' }) },
         { ALT: () => this.CONSUME(T.NumberLit, { LABEL: 'size' }) },
         { ALT: () => this.CONSUME(T.Text, { LABEL: 'size' }) },
-      ]);
+      ]));
     });
   });
 
   public gaugeLine = this.RULE('gaugeLine', () => {
     this.CONSUME(T.Gauge);
     this.CONSUME(T.NumberLit, { LABEL: 'stitches' });
-    this.OR([{ ALT: () => this.CONSUME(T.Sts) }, { ALT: () => this.CONSUME(T.Stitches) }]);
+    this.OR(this.alts(3, () => [{ ALT: () => this.CONSUME(T.Sts) }, { ALT: () => this.CONSUME(T.Stitches) }]));
     this.OPTION(() => this.CONSUME(T.And));
     this.CONSUME2(T.NumberLit, { LABEL: 'rows' });
-    this.OR2([{ ALT: () => this.CONSUME(T.Rounds) }, { ALT: () => this.CONSUME(T.Rows) }]);
-    this.OR3([{ ALT: () => this.CONSUME(T.Per) }, { ALT: () => this.CONSUME(T.Over) }]);
+    this.OR2(this.alts(4, () => [{ ALT: () => this.CONSUME(T.Rounds) }, { ALT: () => this.CONSUME(T.Rows) }]));
+    this.OR3(this.alts(5, () => [{ ALT: () => this.CONSUME(T.Per) }, { ALT: () => this.CONSUME(T.Over) }]));
     this.CONSUME3(T.NumberLit, { LABEL: 'length' });
     this.SUBRULE(this.unit);
   });
 
   public unit = this.RULE('unit', () => {
-    this.OR([{ ALT: () => this.CONSUME(T.Cm) }, { ALT: () => this.CONSUME(T.In) }]);
+    this.OR(this.alts(6, () => [{ ALT: () => this.CONSUME(T.Cm) }, { ALT: () => this.CONSUME(T.In) }]));
   });
 
   public yarnLine = this.RULE('yarnLine', () => {
@@ -114,7 +121,7 @@ class LoopParser extends CstParser {
 
   public workLine = this.RULE('workLine', () => {
     this.CONSUME(T.Work);
-    this.OR([
+    this.OR(this.alts(7, () => [
       { ALT: () => this.CONSUME(T.Flat) },
       {
         ALT: () => {
@@ -123,7 +130,7 @@ class LoopParser extends CstParser {
           this.CONSUME(T.Round);
         },
       },
-    ]);
+    ]));
   });
 
   public floatLine = this.RULE('floatLine', () => {
@@ -141,12 +148,12 @@ class LoopParser extends CstParser {
   });
 
   public roundLine = this.RULE('roundLine', () => {
-    this.OR([
+    this.OR(this.alts(8, () => [
       { ALT: () => this.CONSUME(T.Round, { LABEL: 'word' }) },
       { ALT: () => this.CONSUME(T.Rounds, { LABEL: 'word' }) },
       { ALT: () => this.CONSUME(T.Row, { LABEL: 'word' }) },
       { ALT: () => this.CONSUME(T.Rows, { LABEL: 'word' }) },
-    ]);
+    ]));
     this.SUBRULE(this.graded, { LABEL: 'first' });
     this.OPTION(() => {
       this.CONSUME(T.Dash);
@@ -154,7 +161,7 @@ class LoopParser extends CstParser {
     });
     this.OPTION2(() => {
       this.CONSUME(T.Every);
-      this.OR2([{ ALT: () => this.CONSUME(T.Ordinal) }, { ALT: () => this.CONSUME(T.Other) }]);
+      this.OR2(this.alts(9, () => [{ ALT: () => this.CONSUME(T.Ordinal) }, { ALT: () => this.CONSUME(T.Other) }]));
     });
     this.OPTION3(() => {
       this.CONSUME(T.At);
@@ -174,7 +181,7 @@ class LoopParser extends CstParser {
   });
 
   public op = this.RULE('op', () => {
-    this.OR([
+    this.OR(this.alts(10, () => [
       { ALT: () => this.SUBRULE(this.stitchOp) },
       { ALT: () => this.SUBRULE(this.group) },
       { ALT: () => this.SUBRULE(this.chartOp) },
@@ -186,7 +193,7 @@ class LoopParser extends CstParser {
       { ALT: () => this.SUBRULE(this.carryOp) },
       { ALT: () => this.SUBRULE(this.closeOp) },
       { ALT: () => this.SUBRULE(this.cableOp) },
-    ]);
+    ]));
   });
 
   public stitchOp = this.RULE('stitchOp', () => {
@@ -198,12 +205,12 @@ class LoopParser extends CstParser {
   });
 
   public amount = this.RULE('amount', () => {
-    this.OR([{ ALT: () => this.SUBRULE(this.graded) }, { ALT: () => this.SUBRULE(this.toSpec) }]);
+    this.OR(this.alts(11, () => [{ ALT: () => this.SUBRULE(this.graded) }, { ALT: () => this.SUBRULE(this.toSpec) }]));
   });
 
   public toSpec = this.RULE('toSpec', () => {
     this.CONSUME(T.To);
-    this.OR([
+    this.OR(this.alts(12, () => [
       { ALT: () => this.CONSUME(T.End) },
       {
         ALT: () => {
@@ -217,7 +224,7 @@ class LoopParser extends CstParser {
           this.OPTION(() => this.CONSUME(T.Name));
         },
       },
-    ]);
+    ]));
   });
 
   public group = this.RULE('group', () => {
@@ -225,7 +232,7 @@ class LoopParser extends CstParser {
     this.SUBRULE(this.opList);
     this.CONSUME(T.RParen);
     this.OPTION(() => {
-      this.OR([
+      this.OR(this.alts(13, () => [
         {
           ALT: () => {
             this.SUBRULE(this.graded);
@@ -234,7 +241,7 @@ class LoopParser extends CstParser {
         },
         { ALT: () => this.SUBRULE(this.toSpec) },
         { ALT: () => this.CONSUME(T.Once) },
-      ]);
+      ]));
     });
     this.OPTION2(() => this.SUBRULE(this.inYarn));
   });
@@ -250,12 +257,12 @@ class LoopParser extends CstParser {
   });
 
   public markOp = this.RULE('markOp', () => {
-    this.OR([{ ALT: () => this.CONSUME(T.Mark) }, { ALT: () => this.CONSUME(T.Pm) }]);
+    this.OR(this.alts(14, () => [{ ALT: () => this.CONSUME(T.Mark) }, { ALT: () => this.CONSUME(T.Pm) }]));
     this.CONSUME(T.Name);
   });
 
   public unmarkOp = this.RULE('unmarkOp', () => {
-    this.OR([{ ALT: () => this.CONSUME(T.Unmark) }, { ALT: () => this.CONSUME(T.Rm) }]);
+    this.OR(this.alts(15, () => [{ ALT: () => this.CONSUME(T.Unmark) }, { ALT: () => this.CONSUME(T.Rm) }]));
     this.CONSUME(T.Name);
   });
 
@@ -289,7 +296,7 @@ class LoopParser extends CstParser {
     this.CONSUME(T.NumberLit, { LABEL: 'held' });
     this.CONSUME(T.Over);
     this.CONSUME2(T.NumberLit, { LABEL: 'worked' });
-    this.OR([{ ALT: () => this.CONSUME(T.Left) }, { ALT: () => this.CONSUME(T.Right) }]);
+    this.OR(this.alts(16, () => [{ ALT: () => this.CONSUME(T.Left) }, { ALT: () => this.CONSUME(T.Right) }]));
     this.OPTION(() => this.SUBRULE(this.inYarn));
   });
 
@@ -309,7 +316,7 @@ class LoopParser extends CstParser {
   public keyLine = this.RULE('keyLine', () => {
     this.CONSUME(T.Key);
     this.CONSUME(T.Text);
-    this.OR([
+    this.OR(this.alts(17, () => [
       { ALT: () => this.CONSUME(T.None) },
       {
         ALT: () => {
@@ -324,13 +331,13 @@ class LoopParser extends CstParser {
           this.OPTION3(() => this.CONSUME2(T.Modifier));
         },
       },
-    ]);
+    ]));
   });
 
   public ladderLine = this.RULE('ladderLine', () => {
     this.CONSUME(T.Ladder);
     this.CONSUME(T.Name, { LABEL: 'yarn' });
-    this.OR([
+    this.OR(this.alts(18, () => [
       {
         ALT: () => {
           this.CONSUME(T.Every);
@@ -343,9 +350,9 @@ class LoopParser extends CstParser {
           this.AT_LEAST_ONE_SEP({ SEP: T.Comma, DEF: () => this.SUBRULE2(this.graded, { LABEL: 'column' }) });
         },
       },
-    ]);
+    ]));
     this.CONSUME(T.From);
-    this.OR2([{ ALT: () => this.CONSUME(T.Round) }, { ALT: () => this.CONSUME(T.Row) }]);
+    this.OR2(this.alts(19, () => [{ ALT: () => this.CONSUME(T.Round) }, { ALT: () => this.CONSUME(T.Row) }]));
     this.SUBRULE3(this.graded, { LABEL: 'first' });
     this.CONSUME(T.To);
     this.SUBRULE4(this.graded, { LABEL: 'last' });
