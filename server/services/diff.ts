@@ -8,7 +8,7 @@ import { diffRevisions, formatDiffText } from '../../shared/diff/index.ts';
 import { Revision, type User } from '../models/index.ts';
 import { authorizePattern, canReadRevision } from './access.ts';
 import { notFound } from './errors.ts';
-import { releasedNumbers } from './review.ts';
+import { releasedNumbers } from './releases.ts';
 
 /** `{from, to, semantic, text}`: `semantic` is shared/diff's RevisionDiff, `text` its plain-text form. 404 for a revision the caller cannot read. */
 export async function diffPatternRevisions(user: User | null, patternId: number, from: number, to: number, size?: string): Promise<{ from: number; to: number; size: string | null; semantic: RevisionDiff; text: string }> {

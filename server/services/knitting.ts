@@ -10,7 +10,7 @@ import { Comment, KnittingProgress, type Pattern, Release, Revision, User } from
 import { authorizePattern, type PatternAction } from './access.ts';
 import { toApiComment } from './comments.ts';
 import { badRequest, notFound } from './errors.ts';
-import { findRelease } from './review.ts';
+import { findRelease } from './releases.ts';
 
 interface ReleaseContext { pattern: Pattern; release: Release; revision: Revision; sizes: { name: string; rounds: number }[] }
 

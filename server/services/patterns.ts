@@ -9,10 +9,11 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { SOURCE_MAX_BYTES, type ApiPattern, type ApiPatternListItem, type ApiRevision } from '../../shared/api-schemas.ts';
 import type { ServerContext } from '../context.ts';
 import { Membership, Pattern, Revision, User } from '../models/index.ts';
-import { authorizePattern, canSee, entitledPatternIds, newestVisibleRevision, visibleRevisions, type PatternRole } from './access.ts';
+import { authorizePattern, canSee, entitledPatternIds, newestVisibleRevision, type PatternRole } from './access.ts';
 import { AppError, conflict, notFound, tooLarge } from './errors.ts';
 import { toApiRevision, toPerson } from './serialize.ts';
 import { summarizeSource } from './compile-summary.ts';
+import { readableRevisions } from './releases.ts';
 
 /** Throws 413 when `source` is over {@link SOURCE_MAX_BYTES} UTF-8 bytes. */
 export function checkSourceSize(source: string): void {
@@ -141,7 +142,7 @@ export async function saveRevision(ctx: ServerContext, user: User | null, patter
 /** Revisions the caller may read, newest first, without sources. */
 export async function listRevisions(user: User | null, patternId: number): Promise<ApiRevision[]> {
   const { pattern, role } = await authorizePattern(user, patternId, 'view');
-  const visible = visibleRevisions(role, pattern);
+  const visible = await readableRevisions(role, pattern);
   const revisions = await Revision.findAll({
     where: visible === 'all' ? { patternId: pattern.id } : { patternId: pattern.id, number: visible },
     attributes: { exclude: ['source', 'summary'] },
@@ -154,7 +155,7 @@ export async function listRevisions(user: User | null, patternId: number): Promi
 /** One revision with source and summary; 404 when it does not exist or the caller may not read it. */
 export async function getRevision(user: User | null, patternId: number, number: number): Promise<ApiRevision> {
   const { pattern, role } = await authorizePattern(user, patternId, 'view');
-  const visible = visibleRevisions(role, pattern);
+  const visible = await readableRevisions(role, pattern);
   if (!Number.isSafeInteger(number) || (visible !== 'all' && !visible.includes(number))) throw notFound('Revision');
   const revision = await Revision.findOne({ where: { patternId: pattern.id, number }, include: [withAuthor] });
   if (!revision) throw notFound('Revision');

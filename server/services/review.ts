@@ -6,7 +6,7 @@
  * sends its mails after the commit (a mail that cannot be handed over does
  * not undo the step; `delivered` says so).
  */
-import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
+import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { RELEASE_LABEL, type ApiPattern, type ApiRelease, type ApiReviewEvent, type PatternStatusName } from '../../shared/api-schemas.ts';
 import type { ServerContext } from '../context.ts';
 import type { MailMessage } from '../mail/mailer.ts';
@@ -241,17 +241,4 @@ export async function listReleases(user: User | null, patternId: number): Promis
   const { pattern } = await authorizePattern(user, patternId, 'view');
   const releases = await Release.findAll({ where: { patternId: pattern.id }, include: [{ model: User, as: 'releasedBy' }], order: [['id', 'DESC']] });
   return releases.map((r) => toApiRelease(r));
-}
-
-/** Revision numbers released on a pattern (for the access checks of knitters). */
-export async function releasedNumbers(patternId: number): Promise<number[]> {
-  const rows = await Release.findAll({ where: { patternId }, attributes: ['revisionNumber'] });
-  return rows.map((r) => r.revisionNumber);
-}
-
-/** One release by label; 404 when unknown. */
-export async function findRelease(patternId: number, label: string): Promise<Release> {
-  const r = await Release.findOne({ where: { patternId, label: { [Op.eq]: label } } });
-  if (!r) throw notFound(`Release ${label}`);
-  return r;
 }

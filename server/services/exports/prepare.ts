@@ -8,7 +8,7 @@ import type { ApiExportJob } from '../../../shared/api-schemas.ts';
 import { Release, Revision, User } from '../../models/index.ts';
 import { authorizePattern, canReadRevision } from '../access.ts';
 import { badRequest, notFound } from '../errors.ts';
-import { releasedNumbers } from '../review.ts';
+import { releasedNumbers } from '../releases.ts';
 import { exportFilename, type ExportFormat } from './build.ts';
 import type { ExportInput } from './document.ts';
 import type { ExportJob } from './jobs.ts';
