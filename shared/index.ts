@@ -110,7 +110,7 @@ export function highlightTokens(source: string): { from: number; to: number; kin
 }
 
 /** Every stitch word, for editor completion. */
-export const STITCH_NAMES: readonly string[] = [...new Set([...STITCH_WORDS, ...MODIFIER_WORDS, ...STITCHES.map((s) => s.name).filter((n) => !n.includes(' '))])];
+export const STITCH_NAMES: readonly string[] = [...new Set([...STITCH_WORDS, ...MODIFIER_WORDS])];
 /** Every keyword, for editor completion. */
 export const KEYWORDS: readonly string[] = KEYWORD_WORDS;
 
