@@ -123,7 +123,10 @@ function summarizeSize(s: SizeModel, result: CompileResult, gauge: Gauge | null,
   // floats add their width.
   const loops = new Map<number, number>();
   const floatWidth = new Map<number, number>();
-  for (let i = 0; i < level.store.length; i++) loops.set(level.store.yarn[i], (loops.get(level.store.yarn[i]) ?? 0) + 1);
+  const count = (from: number, to: number) => { for (let i = from; i < to; i++) loops.set(level.store.yarn[i], (loops.get(level.store.yarn[i]) ?? 0) + 1); };
+  count(0, s.castOn);
+  // Rounds may share a slice of the store (identical rounds): count each round's own stitches.
+  for (const rec of level.rounds) count(rec.offset, rec.offset + rec.count);
   for (const rec of level.rounds) {
     for (const f of roundFloats(level, rec.offset, rec.count, !flat)) floatWidth.set(f.yarn, (floatWidth.get(f.yarn) ?? 0) + f.stitches);
   }

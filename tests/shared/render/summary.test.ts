@@ -17,6 +17,9 @@ describe('summary', () => {
     const s = plain.sizes[0].yarn!;
     expect(s.isEstimate).toBe(true);
     expect(s.amounts.map((a) => a.yarn)).toEqual(['A', 'B']);
+    // Every stitch put on the needle is a loop in its yarn: the cast-on plus every round's stitches (rounds may share store slices).
+    const size = result.sizes[0];
+    expect(s.amounts.reduce((n, a) => n + a.stitches, 0)).toBe(size.castOn + size.rounds.reduce((n, r) => n + r.total, 0));
     expect(plain.yarnAssumption).toMatch(/per stitch/);
     // A swatch using twice the modelled yarn per stitch doubles the loop part of the estimate.
     const per = s.model.cmPerStitch;
