@@ -7,7 +7,7 @@
  * I/O, deterministic, never throws on user input.
  */
 import type { Diagnostic, PatternHeader, RoundSummary, FloatInfo } from './types';
-import { parseSource, STITCHES, KEYWORD_WORDS, STITCH_WORDS, MODIFIER_WORDS, lexer, isKeywordToken } from './notation';
+import { parseSource, KEYWORD_WORDS, STITCH_WORDS, MODIFIER_WORDS, lexer, isKeywordToken } from './notation';
 import { checkPattern, type SizeModel } from './check';
 import { sortDiagnostics } from './diagnostics';
 
