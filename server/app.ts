@@ -25,10 +25,13 @@ import { exportRoutes } from './routes/exports.ts';
 import { healthRoutes } from './routes/health.ts';
 import { memberRoutes } from './routes/members.ts';
 import { patternRoutes } from './routes/patterns.ts';
+import { paymentsWebhookRoutes } from './routes/payments-webhook.ts';
+import { shopRoutes } from './routes/shop.ts';
 import { releaseRoutes } from './routes/releases.ts';
 import { reviewRoutes } from './routes/review.ts';
 import { uploadRoutes } from './routes/uploads.ts';
 import { AppError } from './services/errors.ts';
+import { createPayments, type PaymentsConfig } from './services/payments.ts';
 import { createLocalStorage, type ObjectStorage } from './storage/object-storage.ts';
 
 /** A rate limit: at most `limit` requests per `windowMs` from one client address. */
@@ -61,6 +64,8 @@ export interface AppOptions {
   sessionSeconds?: number;
   /** Express `trust proxy` setting, for rate limits behind a load balancer (default false; env TRUST_PROXY in server/index.ts). */
   trustProxy?: boolean | number | string;
+  /** Payment provider (the SDK's key, webhook secret, and host/port of a local stand-in); null or absent: the shop cannot sell (503). */
+  payments?: PaymentsConfig | null;
 }
 
 const repoRoot = path.resolve(import.meta.dirname, '..');
@@ -94,6 +99,7 @@ export function createApp(opts: AppOptions): Express {
     config,
   };
   const limits = opts.rateLimits ?? {};
+  const payments = opts.payments ? createPayments(opts.payments) : null;
 
   const app = express();
   app.disable('x-powered-by');
@@ -106,6 +112,8 @@ export function createApp(opts: AppOptions): Express {
     },
     strictTransportSecurity: isProduction,
   }));
+  // The payment webhook reads its raw body (the signature covers the exact bytes), so it comes before the JSON parser.
+  app.use(paymentsWebhookRoutes(ctx, payments));
   // Sources are capped at 1 MiB by the service (413 with a clear message); leave room for JSON escaping.
   app.use('/api', express.json({ limit: '3mb' }));
   app.use(cookieParser());
@@ -123,6 +131,7 @@ export function createApp(opts: AppOptions): Express {
   api.use(patternRoutes(ctx));
   api.use(memberRoutes(ctx));
   api.use(commentRoutes());
+  api.use(shopRoutes(ctx, payments));
   api.use(reviewRoutes(ctx));
   api.use(releaseRoutes(ctx));
   api.use(diffRoutes());
