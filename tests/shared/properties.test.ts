@@ -167,3 +167,34 @@ describe('conservation in valid rounds', () => {
     );
   });
 });
+
+describe('structured random patterns (segments, ladders, charts, flat work)', () => {
+  const frag = ['round 1:', 'round 2 at back:', 'rounds 2-5 at palm:', 'rows 1-4:', 'rounds 3-9 every 2nd:', 'round 4 at start:', 'k to end', 'p to end',
+    'k 3', 'k2tog', 'ssk', 'yo', 'mark back', 'mark palm', 'unmark back', 'rm palm', 'pm x', 'sm', 'raise B', 'carry', 'close', 'close ssk', 'catch B',
+    '(k1, p1) to end', '(k 2, raise B) 3 times', '(k 2, carry) to marker', 'k to marker', 'k to last 2', 'chart c', 'chart c once', 'chart c row 2',
+    'cable 1 over 2 left', 'bo 3', 'co 2', 'in B', ',', ',', ',', 'ladder B every 3 from round 2 to 6', 'ladder B columns 2, 5 from round 1 to 4 at back',
+    'work flat', 'sizes S M', 'cast on 12/14', 'k 2/3', '\n'];
+  const head = 'gauge 28 sts and 32 rounds per 10 cm\nyarn A "a" #112233\nyarn B "b" #ddeeff\nchart c:\n key "." A\n key "x" B\n key "/" A k2tog\n key "o" yo\n |x./o|\n |.xx.|\ncast on 12\n';
+
+  it('never throw, and when they compile without errors every round conserves stitches (ladder stitches worked automatically)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom(...frag), { maxLength: 60 }), (parts) => {
+        const r = compile(head + parts.join(' '));
+        if (!r.ok) return;
+        for (const s of r.sizes) {
+          const st = s.stitches;
+          let prevOff = 0, prevLen = s.castOn;
+          for (const rec of st.rounds) {
+            let managed = 0;
+            for (let i = prevOff; i < prevOff + prevLen; i++) if (st.store.flags[i] & 4) managed++;
+            expect(rec.start).toBe(prevLen);
+            expect(rec.worked + managed).toBe(rec.start);
+            expect(rec.front + rec.backing).toBe(rec.count);
+            prevOff = rec.offset; prevLen = rec.count;
+          }
+        }
+      }),
+      { numRuns: 500 },
+    );
+  });
+});
