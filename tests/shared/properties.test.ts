@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { compile, highlightTokens, toCheckJson, type Span } from '../../shared/index.ts';
+import { compile, FLAG, highlightTokens, toCheckJson, type Span } from '../../shared/index.ts';
 import { examples } from './fixtures.ts';
 
 const words = [
@@ -186,7 +186,7 @@ describe('structured random patterns (segments, ladders, charts, flat work)', ()
           let prevOff = 0, prevLen = s.castOn;
           for (const rec of st.rounds) {
             let managed = 0;
-            for (let i = prevOff; i < prevOff + prevLen; i++) if (st.store.flags[i] & 4) managed++;
+            for (let i = prevOff; i < prevOff + prevLen; i++) if (st.store.flags[i] & FLAG.MANAGED) managed++;
             expect(rec.start).toBe(prevLen);
             expect(rec.worked + managed).toBe(rec.start);
             expect(rec.front + rec.backing).toBe(rec.count);
