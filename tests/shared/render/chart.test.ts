@@ -135,3 +135,30 @@ function consumedBy(offset: number, count: number, level: ReturnType<typeof demo
   }
   return total;
 }
+
+describe('property: chart of any valid generated pattern', () => {
+  it('rows hold exactly the stitches on the needle, columns are shared, the SVG is well-formed', async () => {
+    const fc = (await import('fast-check')).default;
+    const { buildSource, patternGen } = await import('./gen.ts');
+    const { compile } = await import('../../../shared/index.ts');
+    let checked = 0;
+    fc.assert(fc.property(patternGen, (p) => {
+      const result = compile(buildSource(p));
+      if (!result.ok) return true;
+      checked++;
+      const size = result.sizes[0];
+      const model = buildChart(result)!;
+      model.rows.forEach((row, i) => {
+        expect(row.cells.length).toBe(model.width);
+        expect(row.cells.filter((c) => c && !c.isBoundOff).length).toBe(size.stitches.rounds[i].count);
+      });
+      // A column with no stitch in any round can only be a cast-on stitch taken by a decrease in round 1.
+      const empty = Array.from({ length: model.width }, (_, x) => x).filter((x) => model.rows.every((r) => r.cells[x] === null)).length;
+      expect(empty).toBeLessThanOrEqual(size.castOn);
+      expect(XMLValidator.validate(renderChartSvg(model))).toBe(true);
+      expect(XMLValidator.validate(renderBackSvg(model))).toBe(true);
+      return true;
+    }), { numRuns: 60, seed: 7 });
+    expect(checked).toBeGreaterThan(30);
+  });
+});

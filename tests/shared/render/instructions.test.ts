@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { buildSource, patternGen } from './gen.ts';
 import { compile } from '../../../shared/index.ts';
 import { formatInstructionsText, writeInstructions } from '../../../shared/render/index.ts';
 import { compiled, demo, HEADER } from './helpers.ts';
@@ -68,45 +69,6 @@ describe('written instructions', () => {
 
 // Property: for any valid generated pattern, the counts read back from the
 // written instructions are the checker's counts round by round.
-const stitchOps = [
-  { text: 'k', take: 1, put: 1 }, { text: 'p', take: 1, put: 1 }, { text: 'k2tog', take: 2, put: 1 },
-  { text: 'ssk', take: 2, put: 1 }, { text: 'yo', take: 0, put: 1 }, { text: 'm1l', take: 0, put: 1 },
-  { text: 'kfb', take: 1, put: 2 }, { text: 'k3tog', take: 3, put: 1 }, { text: 'k tbl', take: 1, put: 1 },
-] as const;
-
-const roundGen = fc.array(fc.record({ op: fc.constantFrom(...stitchOps), n: fc.integer({ min: 1, max: 3 }), inB: fc.boolean() }), { minLength: 0, maxLength: 5 });
-const patternGen = fc.record({
-  castOn: fc.integer({ min: 6, max: 30 }),
-  rounds: fc.array(fc.record({ ops: roundGen, repeat: fc.integer({ min: 1, max: 3 }) }), { minLength: 1, maxLength: 8 }),
-  ladder: fc.option(fc.record({ every: fc.integer({ min: 3, max: 6 }), from: fc.integer({ min: 1, max: 3 }), span: fc.integer({ min: 1, max: 4 }) }), { nil: null }),
-});
-
-/** Builds a source whose every round adds up: the listed stitches (only as far as they fit), then "k to end". */
-type Pattern = typeof patternGen extends fc.Arbitrary<infer T> ? T : never;
-function buildSource(p: Pattern): string {
-  let n = p.castOn;
-  const lines = [`${HEADER}`, `cast on ${p.castOn} in A`];
-  p.rounds.forEach((r, i) => {
-    const parts: string[] = [];
-    let left = n, made = 0;
-    for (const o of r.ops) {
-      if (o.op.take * o.n > left || n - left + made + o.op.put * o.n > 400) continue;
-      parts.push(`${o.op.text} ${o.n}${o.inB ? ' in B' : ''}`);
-      left -= o.op.take * o.n;
-      made += o.op.put * o.n;
-    }
-    const body = parts.length ? `${parts.join(', ')}, k to end` : 'k to end';
-    lines.push(`round ${i + 1}: ${body}`);
-    n = made + left;
-  });
-  if (p.ladder && p.rounds.length >= 2) {
-    const from = Math.min(p.ladder.from, p.rounds.length - 1);
-    const to = Math.min(from + p.ladder.span, p.rounds.length);
-    if (to > from) lines.push(`ladder B every ${p.ladder.every} from round ${from} to ${to}`);
-  }
-  return lines.join('\n');
-}
-
 describe('property: instructions read back agree with the checker', () => {
   it('for generated valid patterns', () => {
     let checked = 0;
