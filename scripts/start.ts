@@ -1,6 +1,7 @@
 /**
  * `npm start`: private MariaDB (127.0.0.1:3316, .data/start), migrations,
- * demo seed, fake SMTP (127.0.0.1:2526), `vite build` when the client is
+ * demo seed, fake SMTP (127.0.0.1:2526), the payment stand-in
+ * (127.0.0.1:${PAYMENTS_FAKE_PORT:-4320}), `vite build` when the client is
  * stale, then the app on 127.0.0.1:${PORT:-4310}. Ctrl-C stops everything,
  * MariaDB included.
  */

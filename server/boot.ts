@@ -1,7 +1,8 @@
 /**
  * Starts the whole local back end for `npm start` and `npm run dev`: the
- * private MariaDB, migrations, the demo seed, the fake SMTP server and the
- * Express app on 127.0.0.1. `stop()` shuts everything down in reverse order.
+ * private MariaDB, migrations, the demo seed, the fake SMTP server, the
+ * local payment stand-in (unless STRIPE_SECRET_KEY points at the real
+ * service) and the Express app on 127.0.0.1. `stop()` shuts everything down in reverse order.
  */
 import type { Server } from 'node:http';
 import path from 'node:path';
@@ -11,9 +12,11 @@ import { createSequelize } from './db/connection.ts';
 import { startPrivateMariaDB, type PrivateMariaDB } from './db/launcher.ts';
 import { migrate } from './db/migrate.ts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from './db/seed.ts';
+import { startFakePayments } from './fakes/payments.ts';
 import { startFakeSmtp, type FakeSmtp } from './fakes/smtp.ts';
 import { createMailer, type Mailer } from './mail/mailer.ts';
 import { resolveJwtSecret } from './secrets.ts';
+import { paymentsConfigFromEnv, type PaymentsConfig } from './services/payments.ts';
 
 const repoRoot = path.resolve(import.meta.dirname, '..');
 
@@ -23,6 +26,7 @@ export interface LocalBackendOptions {
   dbPort?: number;     // default 3316
   appPort?: number;    // default PORT or 4310
   smtpPort?: number;   // default 2526
+  paymentsPort?: number; // default PAYMENTS_FAKE_PORT or 4320 (the local payment stand-in)
   distDir?: string | null;
   /** Base URL for mailed links; default PUBLIC_URL or the app URL (dev passes the Vite URL). */
   publicUrl?: string;
@@ -65,6 +69,16 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
     }
     stack.push(() => mailer.close());
 
+    // Payments: the real provider when STRIPE_* is set, else the local stand-in with throwaway keys.
+    let payments: PaymentsConfig | null = paymentsConfigFromEnv();
+    if (!payments) {
+      const fake = await startFakePayments({ port: opts.paymentsPort ?? Number(process.env.PAYMENTS_FAKE_PORT ?? 4320) });
+      stack.push(() => fake.close());
+      fake.setWebhookUrl(`${url}/api/payments/webhook`);
+      payments = { secretKey: fake.secretKey, webhookSecret: fake.webhookSecret, host: fake.host, port: fake.port, protocol: 'http' };
+      console.log(`Payments: local stand-in on ${fake.url} (no real money).`);
+    }
+
     const app = createApp({
       sequelize,
       mailer,
@@ -73,6 +87,7 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
       publicUrl: process.env.PUBLIC_URL ?? opts.publicUrl ?? url,
       outbox: smtp,
       distDir: opts.distDir,
+      payments,
     });
     const server: Server = await new Promise((resolve, reject) => {
       const s = app.listen(appPort, '127.0.0.1', () => resolve(s));
@@ -90,7 +105,7 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
 /** The lines printed after start: URL and demo sign-ins. */
 export function describeDemo(url: string): string {
   const accounts = DEMO_ACCOUNTS.map((a) => `    ${a.email.padEnd(30)} ${a.name} (${a.note})`).join('\n');
-  return `\nLoopwright is running at ${url}\n\n  Demo sign-ins (local demo data only), password "${DEMO_PASSWORD}":\n${accounts}\n\n  Mail outbox (development): ${url}/api/dev/outbox\n  Press Ctrl-C to stop (MariaDB stops too).\n`;
+  return `\nLoopwright is running at ${url}\n\n  Demo sign-ins (local demo data only), password "${DEMO_PASSWORD}":\n${accounts}\n\n  Shop: ${url}/shop (payments go to the local stand-in unless STRIPE_SECRET_KEY is set)\n  Mail outbox (development): ${url}/api/dev/outbox\n  Press Ctrl-C to stop (MariaDB stops too).\n`;
 }
 
 /** Runs `stop` once on SIGINT/SIGTERM, then exits (130/143). */
