@@ -32,6 +32,13 @@ class Hasher {
   key(): string { return `${(this.a >>> 0).toString(36)}.${(this.b >>> 0).toString(36)}`; }
 }
 
+/**
+ * What a stitch worked on a WS row shows on the right side (knit and purl
+ * swapped), as charts draw it: the same pairs shared/check/charts.ts uses
+ * to turn chart cells into WS stitches.
+ */
+const WS_SHOWS: Readonly<Record<string, string>> = { k: 'p', p: 'k', 'k tbl': 'p tbl', 'p tbl': 'k tbl', k2tog: 'p2tog', p2tog: 'k2tog', ssk: 'ssp', ssp: 'ssk' };
+
 /** Front stitches of a round as numbers (see {@link SizeView.fronts}). */
 export interface Fronts { op: Int32Array; yarn: Int32Array; view: SizeView }
 
@@ -91,7 +98,8 @@ export class SizeView {
 
   /**
    * The front stitches of round r in right-side order, as numbers: the
-   * stitch-table code and the yarn's id in `yarnIds` (a table both views of
+   * stitch-table code of the stitch as it shows on the right side (on WS rows
+   * knit and purl swapped, as a chart shows it) and the yarn's id in `yarnIds` (a table both views of
    * a diff share), so comparing two rounds compares numbers, not names.
    */
   fronts(r: number, yarnIds: ReadonlyMap<string, number>): Fronts {
@@ -99,11 +107,12 @@ export class SizeView {
     const rec = rounds[r];
     const ids = yarns.map((y) => yarnIds.get(y) ?? -1);
     const op = new Int32Array(rec.front), yarn = new Int32Array(rec.front);
+    const shown = rec.side === 'WS' ? this.rightSide() : null;
     let n = 0;
     for (let k = 0; k < rec.count && n < rec.front; k++) {
       const i = this.at(r, k);
       if (store.flags[i] & FLAG_BACKING) continue;
-      op[n] = store.op[i]; yarn[n] = ids[store.yarn[i]] ?? -1; n++;
+      op[n] = shown ? shown[store.op[i]] : store.op[i]; yarn[n] = ids[store.yarn[i]] ?? -1; n++;
     }
     return { op: op.subarray(0, n), yarn: yarn.subarray(0, n), view: this };
   }
@@ -129,6 +138,17 @@ export class SizeView {
       if ((x.store.flags[i] & FLAG_BACKING) !== (y.store.flags[j] & FLAG_BACKING)) return false;
     }
     return true;
+  }
+
+  private rsCodes: Int32Array | null = null;
+
+  /** Stitch-table code -> the code of the stitch as it shows on the right side when worked on a WS row. */
+  private rightSide(): Int32Array {
+    if (this.rsCodes) return this.rsCodes;
+    const ops = this.model.stitches.ops;
+    const byName = new Map(ops.map((o) => [o.name, o.code]));
+    this.rsCodes = Int32Array.from(ops.map((o) => byName.get(WS_SHOWS[o.name] ?? o.name) ?? o.code));
+    return this.rsCodes;
   }
 
   /** The name of a stitch-table code. */

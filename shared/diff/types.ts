@@ -57,7 +57,10 @@ export interface RoundChange {
  * One chart cell: a front stitch of a round. `stitch` is 1-based and counts
  * front stitches in right-side working order (from the chart's right edge;
  * backing stitches take no width and are not cells). `op` is the stitch
- * table's name ("k", "k2tog", "close ssk"); `yarn` the yarn's short name.
+ * table's name ("k", "k2tog", "close ssk") of the stitch as it shows on the
+ * right side, as a chart draws it (on a WS row a purled stitch shows as
+ * "k": knit and purl, k2tog and p2tog, ssk and ssp swapped); `yarn` the
+ * yarn's short name.
  */
 export interface CellState { stitch: number; op: string; yarn: string }
 
