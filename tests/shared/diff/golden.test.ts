@@ -106,6 +106,10 @@ describe('a moved backing column', () => {
     expect(s.rounds.filter((r) => r.aspects.includes('stitches')).map((r) => r.new!.number)).toEqual([12]);
     expect(s.word).toBe('row');
   });
+  it('shows the closing row 12 (WS) as the chart does: knit on the WS shows as purl on the RS (garter; common practice)', () => {
+    const s = size(d, 'one');
+    expect(s.cells.map((c) => [c.round.new, c.old!.op, c.new!.op])).toEqual([[12, 'close k2tog', 'p'], [12, 'p', 'close k2tog']]);
+  });
 });
 
 describe('a header change', () => {
