@@ -11,6 +11,8 @@
  */
 import type { Diagnostic, PatternHeader, RoundSummary } from '../../shared';
 import type { Instructions } from '../../shared/render/instructions';
+import type { PatternSummary } from '../../shared/render/summary';
+import type { PlanResult } from '../../shared/render/planner';
 
 /** One coloured token (offsets into the source, `to` exclusive). Kinds as `highlightTokens` reports them. */
 export interface HighlightToken {
@@ -103,6 +105,44 @@ export interface InstructionsMessage {
   problem?: string;
 }
 
-export type { Instructions };
+/**
+ * Page → summary worker: summarise this text (sent after each compile of
+ * the main worker while the summary pane shows).
+ */
+export interface SummarySourceMessage {
+  type: 'summarize';
+  id: number;
+  source: string;
+}
+
+/** Summary worker → page: the summary of text `id`. */
+export interface SummaryMessage {
+  type: 'summary';
+  id: number;
+  summary: PatternSummary | null;
+  problem?: string;
+}
+
+/** Page → summary worker: propose backing columns for rounds `first`–`last` of the newest text it was sent. */
+export interface PlanMessage {
+  type: 'plan';
+  request: number;
+  first: number;
+  last: number;
+  segment?: string;
+}
+
+/** Summary worker → page: the planner's proposal, for the text `source`. */
+export interface PlanAnswer {
+  type: 'plan';
+  request: number;
+  source: string;
+  plan: PlanResult | null;
+  problem?: string;
+}
+
+export type { Instructions, PatternSummary, PlanResult };
 export type WorkerMessage = SourceMessage | SettingsMessage;
 export type WorkerAnswer = VocabularyMessage | TokensMessage | CompiledView | ChartMessage | InstructionsMessage;
+export type SummaryWorkerMessage = SummarySourceMessage | PlanMessage;
+export type SummaryWorkerAnswer = SummaryMessage | PlanAnswer;

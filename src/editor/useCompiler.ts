@@ -43,6 +43,7 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
   const [chart, setChart] = useState<ChartMessage | null>(null);
   const [instructions, setInstructions] = useState<InstructionsMessage | null>(null);
 
+
   useEffect(() => {
     const w = new Worker(new URL('./compile.worker.ts', import.meta.url), { type: 'module', name: 'loopwright-compile' });
     w.onmessage = (e: MessageEvent<WorkerAnswer>) => {
@@ -51,6 +52,7 @@ export function useCompiler(listeners: CompilerListeners, delayMs = COMPILE_DEBO
       else if (m.type === 'tokens') { if (m.id === wanted.current) listen.current.onTokens(m); }
       else if (m.type === 'chart') setChart(m);
       else if (m.type === 'instructions') setInstructions(m);
+
       else if (m.id === wanted.current) { setView(m); setPending(false); }
     };
     worker.current = w;

@@ -8,7 +8,10 @@
  *   nor find/replace, loaded on first Mod-F), and the compile worker with
  *   every chunk it imports (the chart and instructions renderers it loads
  *   when those panes open);
- * - workspace on opening: the same without the renderers' chunks.
+ * - workspace on opening: the same without the renderers' chunk;
+ * - summary pane: its component and the separate worker it starts on
+ *   first open (reported apart; the budget names editor, compiler worker
+ *   and chart).
  * Budgets (issue 6): 150 KB and 300 KB (1 KB = 1024 bytes).
  *
  * Run after `vite build`: `npx tsx tests/e2e/bundle-size.ts` prints JSON.
@@ -26,6 +29,7 @@ export interface BundleSizes {
   firstLoadGzip: number;
   workspaceGzip: number;
   workspaceOnOpenGzip: number;
+  summaryPaneGzip: number;
   firstLoadFiles: string[];
   workspaceFiles: string[];
   budgets: { firstLoadGzip: number; workspaceGzip: number };
@@ -65,10 +69,12 @@ export function measureBundles(distDir = path.resolve(import.meta.dirname, '..',
   const workspaceKey = page('Workspace');
   // Views the workspace loads on demand count too (chart, instructions), except
   // the conflict dialog, which loads only when a save meets a newer revision.
-  const views = (manifest[workspaceKey].dynamicImports ?? []).filter((k) => k.includes('src/') && !k.includes('ConflictDialog'));
+  const views = (manifest[workspaceKey].dynamicImports ?? []).filter((k) => k.includes('src/') && !/ConflictDialog|SummaryPane/.test(k));
   const workspace = closure(manifest, [entry, workspaceKey, ...views]);
   const assets = path.join(distDir, 'assets');
-  const workers = readdirSync(assets).filter((f) => /worker/i.test(f) && f.endsWith('.js')).map((f) => `assets/${f}`);
+  const js = readdirSync(assets).filter((f) => f.endsWith('.js'));
+  const workers = js.filter((f) => /^compile\.worker/.test(f)).map((f) => `assets/${f}`);
+  const summaryWorker = js.filter((f) => /^(summary\.worker|SummaryPane)-/.test(f)).map((f) => `assets/${f}`);
   const onOpen = new Set([...workspace, ...workers]);
   // The worker bundle is not in the manifest: follow its own imports.
   const queue = [...workers];
@@ -79,10 +85,12 @@ export function measureBundles(distDir = path.resolve(import.meta.dirname, '..',
     const code = readFileSync(path.join(distDir, file), 'utf8');
     for (const m of code.matchAll(/(?:import\(\s*[`'"]|from\s*[`'"])\.\/([\w.-]+\.js)/g)) queue.push(`assets/${m[1]}`);
   }
+
   return {
     firstLoadGzip: gz(distDir, first),
     workspaceGzip: gz(distDir, workspace),
     workspaceOnOpenGzip: gz(distDir, onOpen),
+    summaryPaneGzip: gz(distDir, summaryWorker),
     firstLoadFiles: [...first],
     workspaceFiles: [...workspace],
     budgets: BUDGETS,

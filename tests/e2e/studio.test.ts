@@ -263,4 +263,29 @@ describe('the studio in Chromium', () => {
     expect(latest.body.latestRevision.source).not.toContain('k10 in A, k10 in C');
     await page.close();
   }, 120_000);
+
+  it('fixes long floats with the backing-stitch planner from the summary pane', async () => {
+    // 12 sts of A between the B stitches: at 28 sts per 10 cm that is about
+    // 4.3 cm, over the 1 in (2.54 cm) limit (common practice: catch floats
+    // longer than about an inch).
+    const FLOATS = [
+      'title "Tidepool Cowl"', 'sizes S M L', 'gauge 28 sts and 32 rounds per 10 cm', 'yarn A "Sea lavender" #6a5397', 'yarn B "Foam" #eeeae0',
+      'work in the round', 'cast on 84/98/112 in A', 'rounds 1-4: (k1, p1) to end', 'rounds 5-12: (k12 in A, k2 in B) to end', 'rounds 13-14: k to end in A', '',
+    ].join('\n');
+    const id = await newPattern(`Tidepool Cowl floats ${Date.now()}`, FLOATS);
+    const page = await h.context.newPage();
+    await openPattern(page, id, /3 warnings/);
+    await page.keyboard.press('Alt+5');
+    const summary = page.getByTestId('summary');
+    await expect.poll(() => summary.textContent(), { timeout: 15_000 }).toContain('over the limit');
+    await summary.getByLabel('First round').fill('5');
+    await summary.getByLabel('Last round').fill('13');
+    await summary.getByRole('button', { name: 'Propose columns' }).click();
+    await summary.getByText('every float in the range is within the limit').waitFor({ timeout: 15_000 });
+    await shot(page, '09-planner');
+    await summary.getByRole('button', { name: 'Insert into the source' }).click();
+    await expect.poll(() => page.locator('.cm-content').textContent()).toContain('ladder B columns');
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toContain('Adds up in 3 sizes');
+    await page.close();
+  }, 120_000);
 });

@@ -16,6 +16,7 @@ import { setVocabulary } from '../../editor/completion';
 import { roundsOnLine } from '../../editor/rounds';
 import { useCompiler } from '../../editor/useCompiler';
 import type { QuickFix } from '../../editor/quick-fix';
+import type { PlanAnswer } from '../../editor/protocol';
 import { Notice } from '../Notice';
 import { relativeTime } from '../format';
 import { ChartPane, type ChartSettings } from './ChartPane';
@@ -30,8 +31,10 @@ import { useWorkspaceKeys } from './useWorkspaceKeys';
 import { WorkspaceHeader } from './WorkspaceHeader';
 import { writeSetAside } from './drafts';
 
-type PaneKey = 'counts' | 'problems' | 'chart' | 'instructions';
+type PaneKey = 'counts' | 'problems' | 'chart' | 'instructions' | 'summary';
 
+// The summary pane (and its worker) load the first time it opens.
+const SummaryPane = lazy(() => import('./SummaryPane').then((m) => ({ default: m.SummaryPane })));
 // Loaded only when a save meets a newer revision (it brings the text-diff library).
 const ConflictDialog = lazy(() => import('./ConflictDialog').then((m) => ({ default: m.ConflictDialog })));
 
@@ -97,6 +100,14 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     h.focus();
   }, [view]);
 
+  const insertPlan = useCallback((answer: PlanAnswer) => {
+    const h = editor.current;
+    if (!h || !answer.plan || h.view.state.doc.toString() !== answer.source) return false;
+    h.replaceDoc(answer.plan.patchedSource);
+    h.focus();
+    return true;
+  }, []);
+
   const openSave = useCallback(() => { if (canEdit) { save.reset(); setSaveOpen(true); } }, [canEdit, save]);
 
   const doSave = (message: string, baseRevision: number) => {
@@ -141,6 +152,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     },
     { key: 'chart', label: 'Chart', shortcut: 'Alt+3' },
     { key: 'instructions', label: 'Instructions', shortcut: 'Alt+4' },
+    { key: 'summary', label: 'Summary', shortcut: 'Alt+5' },
   ];
 
   useWorkspaceKeys({
@@ -235,6 +247,12 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
                 settings={chartSettings} onSettings={setChartSettings}
                 stale={compiler.pending || (compiler.chart !== null && view !== null && compiler.chart.id !== view.id)}
                 cursorSpan={cursorSpan} onJump={jumpRange} word={view?.header.construction === 'flat' ? 'Row' : 'Round'} />
+            )}
+            {pane === 'summary' && (
+              <Suspense fallback={<p className="p-5 text-sm text-tide-600" role="status">Loading the summary…</p>}>
+                <SummaryPane compiled={view} onInsert={insertPlan}
+                  word={view?.header.construction === 'flat' ? 'Row' : 'Round'} />
+              </Suspense>
             )}
             {pane === 'instructions' && (
               <InstructionsPane message={compiler.instructions} sizes={view?.sizes.map((s) => s.name) ?? []} size={instructionsSize}
