@@ -81,7 +81,7 @@ export const SummaryPane = memo(function SummaryPane({ compiled, onInsert, word 
           );
         })}
       </div>
-      {sum.yarnAssumption && <p className="mt-3 text-caption text-tide-700">Yarn amounts are an estimate with a 10 % allowance: {sum.yarnAssumption}</p>}
+      {sum.yarnAssumption && <p className="mt-3 text-caption text-tide-700">Yarn amounts include a 10 % allowance. {sum.yarnAssumption}</p>}
       {sum.gaps.map((g) => <p key={g} className="mt-2 text-caption text-mudflat-800">{g}</p>)}
 
       <section aria-labelledby="planner-title" className="mt-5 rounded-stitch border border-lavender-200 bg-lavender-50 p-4">
