@@ -42,6 +42,7 @@
  * The segment limits where columns may go (never at the segment's edges).
  */
 import { compile, type CompileResult } from '../index';
+import { parseSource } from '../notation';
 import type { SizeModel } from '../check';
 import { FLAG } from '../check';
 import { floatLimitFromHeader } from './chart-model';
@@ -110,6 +111,8 @@ export function planBacking(req: PlanRequest): PlanResult {
   if (needed.some((p) => p.yarn !== yarn)) problems.push('The sizes need columns in different yarns; the proposal uses the first size\'s yarn.');
   const lines = ladderLines(out.sizes, yarn, result, req, problems);
   if (!lines) return out;
+  const clash = existingLadder(req);
+  if (clash) problems.push(`A ladder line already runs over these rounds in the same place (line ${clash}); only one ladder works a segment at a time, so add the proposed columns to that line instead.`);
   out.ladderSource = lines;
   out.patchedSource = `${req.source.replace(/\s*$/, '')}\n\n# Backing columns proposed by the planner (rounds ${req.first}-${req.last}).\n${lines}\n`;
   const patched = compile(out.patchedSource);
@@ -118,6 +121,17 @@ export function planBacking(req: PlanRequest): PlanResult {
   if (newErrors.length) problems.push(`The patched source has errors: ${newErrors.slice(0, 3).map((d) => d.message).join('; ')}`);
   out.ok = patched.ok && out.after.length === 0;
   return out;
+}
+
+/** The line of an existing ladder over the same place and overlapping rounds (first size's numbers), or null. */
+function existingLadder(req: PlanRequest): number | null {
+  const { ast } = parseSource(req.source);
+  for (const l of ast.ladders) {
+    const first = l.first.values[0], last = l.last.values[0];
+    const samePlace = (l.segment?.name ?? null) === (req.segment ?? null) || !l.segment || !req.segment;
+    if (samePlace && first <= req.last + 1 && last >= req.first) return l.span.line;
+  }
+  return null;
 }
 
 /** Floats over the limit in rounds [first, last], as the checker measured them. */

@@ -72,6 +72,13 @@ describe('backing-stitch planner', () => {
     expect(plan.ladderSource).toMatch(/from row 1 to 5$/);
   });
 
+  it('points at an existing ladder over the same rounds instead of claiming a proof', () => {
+    const src = `${longFloats}\nladder B every 5 from round 2 to 4`;
+    const plan = planBacking({ source: src, first: 1, last: 3 });
+    expect(plan.ok).toBe(false);
+    expect(plan.problems.join(' ')).toMatch(/already runs over these rounds/);
+  });
+
   it('says so when nothing is needed, and refuses a pattern with errors', () => {
     const fine = planBacking({ source: `${HEADER}\ncast on 8 in A\nrounds 1-2: (k1 in A, k1 in B) to end`, first: 1, last: 2 });
     expect(fine.ok).toBe(true);
