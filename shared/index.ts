@@ -13,7 +13,7 @@ import { sortDiagnostics } from './diagnostics';
 
 export type { Span, Severity, Diagnostic, FloatInfo, RoundSummary, PatternHeader } from './types';
 export type { SizeModel, StitchLevel, RoundRecord, MarkerPos, SegmentRange, ColumnInfo, FloatRun } from './check';
-export { FLAG, LIMITS } from './check';
+export { FLAG, LIMITS, asSeenFromRightSide } from './check';
 export { STITCHES, type StitchInfo } from './notation';
 export { CODE_LIST, formatDiagnosticText } from './diagnostics';
 

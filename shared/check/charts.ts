@@ -51,10 +51,19 @@ export interface PreparedChart {
 
 const wsSwap: Record<string, string> = { k: 'p', p: 'k', 'k tbl': 'p tbl', 'p tbl': 'k tbl', k2tog: 'p2tog', p2tog: 'k2tog', ssk: 'ssp', ssp: 'ssk' };
 
-/** The stitch a cell works on the wrong side. */
+/** The stitch a cell works on the wrong side (knit and purl swapped). */
 export function wrongSide(s: StitchInfo): StitchInfo {
   const other = wsSwap[s.name];
   return other ? stitchByName(other)! : s;
+}
+
+/**
+ * How a stitch worked on `side` looks from the right side: a purl worked on
+ * a WS row shows as a knit stitch (and k2tog/p2tog, ssk/ssp likewise). The
+ * model stores stitches as worked; renderers call this for RS symbols.
+ */
+export function asSeenFromRightSide(s: StitchInfo, side: 'RS' | 'WS'): StitchInfo {
+  return side === 'WS' ? wrongSide(s) : s;
 }
 
 /** Prepares every chart; problems go to the reporter. */

@@ -21,6 +21,7 @@ export { FLAG, StitchStore } from './store';
 export { LIMITS } from './context';
 export { ONE_SIZE, DEFAULT_YARN } from './header';
 export { formatRounds } from './backing';
+export { asSeenFromRightSide } from './charts';
 export type { RoundRecord } from './round';
 export type { MarkerPos, SegmentRange, ColumnInfo } from './machine';
 export type { FloatRun } from './floats';

@@ -58,3 +58,16 @@ describe('chart reading directions', () => {
     expect(worked(r, 3)).toEqual(['A:k', 'A:k', 'A:k', 'A:k']);
   });
 });
+
+describe('what a stitch shows on the other side (chart-reading guides: symbols show the RS)', () => {
+  it('a purl worked on a WS row shows as knit from the RS, and p2tog as k2tog', async () => {
+    const { asSeenFromRightSide, STITCHES } = await import('../../shared/index.ts');
+    const by = (n: string) => STITCHES.find((s) => s.name === n)!;
+    expect(asSeenFromRightSide(by('p'), 'WS').name).toBe('k');
+    expect(asSeenFromRightSide(by('k'), 'WS').name).toBe('p');
+    expect(asSeenFromRightSide(by('p2tog'), 'WS').name).toBe('k2tog');
+    expect(asSeenFromRightSide(by('ssp'), 'WS').name).toBe('ssk');
+    expect(asSeenFromRightSide(by('p'), 'RS').name).toBe('p');
+    expect(asSeenFromRightSide(by('yo'), 'WS').name).toBe('yo');
+  });
+});
