@@ -10,7 +10,8 @@ import { createToken, Lexer, type TokenType } from 'chevrotain';
 import { STITCH_WORDS, MODIFIER_WORDS } from './stitches';
 
 /** Plain names: yarn short names, sizes, segments, markers, charts. */
-export const Name = createToken({ name: 'Name', pattern: /[A-Za-z_][A-Za-z0-9_-]*/, label: 'a name' });
+// Latin letters with accents (U+00C0-U+024F, except × and ÷) are letters too: "Säule", "Brú".
+export const Name = createToken({ name: 'Name', pattern: /[A-Za-z_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F][A-Za-z0-9_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F-]*/, label: 'a name' });
 
 const keywordTokens: TokenType[] = [];
 function keyword(word: string): TokenType {
@@ -93,7 +94,7 @@ export const Modifier = createToken({
   label: 'tbl, wyif or wyib',
 });
 
-export const WhiteSpace = createToken({ name: 'WhiteSpace', pattern: /[ \t\r\n\f\v\u00a0]+/, group: Lexer.SKIPPED });
+export const WhiteSpace = createToken({ name: 'WhiteSpace', pattern: /[ \t\r\n\f\v\u00a0\ufeff]+/, group: Lexer.SKIPPED });
 /** #1d3557: a colour (six hex digits, nothing after). */
 export const Colour = createToken({
   name: 'Colour',
