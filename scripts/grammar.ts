@@ -16,7 +16,7 @@ const require = createRequire(import.meta.url);
 // chevrotain does not export its package.json; find the diagrams folder from the main entry.
 const entry = require.resolve('chevrotain');
 const pkgDir = entry.slice(0, entry.lastIndexOf(`${path.sep}chevrotain${path.sep}`) + '/chevrotain'.length);
-const assets = ['vendor/railroad-diagrams.js', 'src/diagrams_builder.js', 'src/diagrams_behavior.js', 'diagrams.css'];
+const assets = ['vendor/railroad-diagrams.js', 'src/diagrams_builder.js', 'src/diagrams_behavior.js', 'src/main.js', 'diagrams.css'];
 
 mkdirSync(path.join(out, 'vendor'), { recursive: true });
 mkdirSync(path.join(out, 'src'), { recursive: true });
