@@ -112,6 +112,7 @@ export function workRounds(
       columns: new Set(l.ladder.columns.map((c) => ctx.graded(c))),
     }));
     for (const l of m.ladders) {
+      if (l.ladder.every && l.every < 1) ctx.report('LW103', l.ladder.every.span, { what: 'a ladder spacing', need: 'at least 1 stitch', value: l.every });
       if (l.ladder.segment && !segs.some((s) => s.name === l.ladder.segment!.name)) {
         ctx.report('LW204', l.ladder.segment.span, { round: p.number, name: l.ladder.segment.name, known: segs.map((s) => s.name).join(', ') });
       }
