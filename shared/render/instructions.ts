@@ -87,7 +87,7 @@ export function writeInstructions(source: string, result: CompileResult, size?: 
       if (!line) continue;
       const lineYarn = line.yarn?.name ?? defaultYarn;
       const ctx: PhraseContext = {
-        graded, lineYarn, defaultYarn, used, stitchMeaning: meaningOf, namesEveryYarn: namesYarns(line.ops),
+        graded, lineYarn, defaultYarn, used, stitchMeaning: meaningOf, namesEveryYarn: namesYarns(line.ops), flat,
         chartRow: (op) => {
           if (op.row) return graded(op.row);
           const h = chartHeight.get(op.chart.name);

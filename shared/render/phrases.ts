@@ -39,6 +39,8 @@ export interface PhraseContext {
   chartRow: (op: Extract<Op, { type: 'chart' }>) => number | null;
   /** Abbreviations met so far (filled in). */
   used: Map<string, string>;
+  /** Flat work (charts read RS rows right to left, WS rows left to right); default in the round. */
+  flat?: boolean;
   /** Write the yarn of every stitch that names one, even the line's own (lines that mix yarns). */
   namesEveryYarn?: boolean;
   /** Meaning of a stitch name (STITCHES). */
@@ -117,7 +119,9 @@ export function opPhrase(op: Op, ctx: PhraseContext, depth = 0): string {
     case 'chart': {
       const row = ctx.chartRow(op);
       const which = row === null ? `chart ${op.chart.name}` : `row ${row} of chart ${op.chart.name}`;
-      use(ctx, `chart ${op.chart.name}`, 'the chart of that name: read RS rows (and every round) from right to left, WS rows from left to right');
+      use(ctx, `chart ${op.chart.name}`, ctx.flat
+        ? `the chart named ${op.chart.name}: read RS rows from right to left and WS rows from left to right; row 1 is the bottom row`
+        : `the chart named ${op.chart.name}: read every round from right to left; row 1 is the bottom row`);
       return op.once ? `work ${which} once` : `work ${which} to end, repeating it across`;
     }
     case 'mark': use(ctx, 'pm'); return `pm ${op.name.name}`;
