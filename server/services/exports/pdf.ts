@@ -20,6 +20,66 @@ const FOOTER = 28;
 const INK = '#1f1d1b';
 const MUTED = '#5b5650';
 
+/** Smallest chart scale: the shared chart draws 16-unit cells, so 0.5 keeps a cell at 8 pt (about 2.8 mm). */
+export const MIN_CHART_SCALE = 0.5;
+const A4 = { width: 595.28, height: 841.89 };
+/** Room for the chart on a page: the margins, the footer and the heading line. */
+const CHART_HEADING = 26;
+
+/** How a chart of `w` x `h` SVG units goes on pages: one scale and orientation, and the top-left corner (SVG units) of each page's part. */
+export interface ChartPlan { layout: 'portrait' | 'landscape'; scale: number; tiles: { x: number; y: number }[] }
+
+/**
+ * Plans the chart pages: the whole chart on one page when it fits at
+ * {@link MIN_CHART_SCALE} or larger (never enlarged past 1), else parts of
+ * it at that scale on as few pages as possible, preferring to keep whole
+ * rounds on a page. Parts run from the chart's right edge (where rounds
+ * start) and from the bottom (round 1).
+ */
+export function planChartPages(w: number, h: number): ChartPlan {
+  const options = (['portrait', 'landscape'] as const).map((layout) => {
+    const pageW = (layout === 'portrait' ? A4.width : A4.height) - 2 * MARGIN;
+    const room = (layout === 'portrait' ? A4.height : A4.width) - 2 * MARGIN - FOOTER - CHART_HEADING;
+    const fit = Math.min(1, pageW / w, room / h);
+    const scale = fit >= MIN_CHART_SCALE ? fit : MIN_CHART_SCALE;
+    const tileW = pageW / scale, tileH = room / scale;
+    const cols = Math.max(1, Math.ceil(w / tileW - 1e-6)), rows = Math.max(1, Math.ceil(h / tileH - 1e-6));
+    const tiles: { x: number; y: number }[] = [];
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < cols; c++) tiles.push({ x: Math.max(0, w - (c + 1) * tileW), y: Math.max(0, h - (r + 1) * tileH) });
+    }
+    return { layout, scale, tiles, cols };
+  });
+  options.sort((a, b) => a.tiles.length - b.tiles.length || a.cols - b.cols || b.scale - a.scale);
+  const best = options[0]!;
+  return { layout: best.layout, scale: best.scale, tiles: best.tiles };
+}
+
+/**
+ * Draws `svg` (w x h units, at the origin) into a new form XObject instead
+ * of the page: the page's content writer is swapped for the form's while
+ * svg-to-pdfkit draws, and the form shares the page's resources (fonts,
+ * graphics states) it registered. Drawing a big chart takes seconds, so a
+ * chart on several pages is drawn once.
+ */
+function drawOnce(pdf: PDFKit.PDFDocument, svg: string, w: number, h: number): PDFKit.PDFKitReference {
+  const page = pdf.page as unknown as { write(chunk: unknown): unknown; resources: PDFKit.PDFKitReference };
+  const recorded: unknown[] = [];
+  page.write = (chunk: unknown) => recorded.push(chunk);
+  try {
+    pdf.save();
+    SVGtoPDF(pdf, svg, 0, 0, { width: w, height: h, preserveAspectRatio: 'xMinYMin meet', fontCallback: (_family: string, bold: boolean) => (bold ? 'Inter-Bold' : 'Inter') });
+    pdf.restore();
+  } finally {
+    delete (page as { write?: unknown }).write; // back to the prototype's writer
+  }
+  const form = pdf.ref({ Type: 'XObject', Subtype: 'Form', FormType: 1, BBox: [0, 0, w, h], Resources: page.resources });
+  const sink = form as unknown as { write(c: unknown): void; end(): void };
+  for (const chunk of recorded) sink.write(chunk);
+  sink.end();
+  return form;
+}
+
 /** Writes `doc` as a PDF (A4). */
 export async function writePdf(doc: ExportDocument, onProgress: ProgressFn = () => {}): Promise<Buffer> {
   const pdf = new PDFDocument({
@@ -94,20 +154,28 @@ export async function writePdf(doc: ExportDocument, onProgress: ProgressFn = () 
   }
   onProgress(0.3);
 
-  // The chart, vector, as large as the page allows; a wide chart gets a landscape page.
+  // The chart, vector, on as few pages as keep cells legible (see planChartPages).
   if (doc.chartSvg) {
     const m = /<svg[^>]*\bwidth="([\d.]+)"[^>]*\bheight="([\d.]+)"/.exec(doc.chartSvg);
     const w = Number(m?.[1] ?? width), h = Number(m?.[2] ?? width);
-    pdf.addPage({ size: 'A4', layout: w > h * 1.15 ? 'landscape' : 'portrait', margins: { top: MARGIN, bottom: MARGIN, left: MARGIN, right: MARGIN } });
-    const pageWidth = pdf.page.width - 2 * MARGIN;
-    pdf.font('Inter-Bold').fontSize(13).fillColor(INK).text('Chart', MARGIN, MARGIN, { width: pageWidth });
-    const room = bottom() - pdf.y - 6;
-    const scale = Math.min(pageWidth / w, room / h);
-    SVGtoPDF(pdf, doc.chartSvg, MARGIN, pdf.y + 6, {
-      width: w * scale,
-      height: h * scale,
-      preserveAspectRatio: 'xMinYMin meet',
-      fontCallback: (_family: string, bold: boolean) => (bold ? 'Inter-Bold' : 'Inter'),
+    const plan = planChartPages(w, h);
+    let form: PDFKit.PDFKitReference | null = null;
+    plan.tiles.forEach((tile, i) => {
+      pdf.addPage({ size: 'A4', layout: plan.layout, margins: { top: MARGIN, bottom: MARGIN, left: MARGIN, right: MARGIN } });
+      const pageWidth = pdf.page.width - 2 * MARGIN;
+      const part = plan.tiles.length > 1 ? `, part ${i + 1} of ${plan.tiles.length} (columns from the right edge, ${doc.construction === 'flat' ? 'rows' : 'rounds'} from the bottom)` : '';
+      pdf.font('Inter-Bold').fontSize(13).fillColor(INK).text(`Chart${part}`, MARGIN, MARGIN, { width: pageWidth });
+      const top = pdf.y + 6;
+      const room = bottom() - top;
+      // The chart is drawn once into a form XObject and placed on every page of the plan.
+      form ??= drawOnce(pdf, doc.chartSvg as string, w, h);
+      pdf.page.xobjects.LwChart = form;
+      pdf.save();
+      pdf.rect(MARGIN, top, pageWidth, room).clip();
+      pdf.transform(plan.scale, 0, 0, plan.scale, MARGIN - tile.x * plan.scale, top - tile.y * plan.scale);
+      pdf.addContent('/LwChart Do');
+      pdf.restore();
+      onProgress(0.3 + 0.2 * ((i + 1) / plan.tiles.length));
     });
     pdf.addPage({ size: 'A4', layout: 'portrait', margins: { top: MARGIN, bottom: MARGIN, left: MARGIN, right: MARGIN } });
   } else pdf.addPage();
