@@ -45,8 +45,8 @@ export function quickFixesFor(d: Diagnostic, source: string): QuickFix[] {
   const { from, to } = d.span;
   if (to <= from || to > source.length) return [];
   const current = source.slice(from, to);
-  // Only a like-for-like swap of the flagged text: a different word of about
-  // the same size, on one line. Anything else is advice, not a fix.
-  if (current === insert || current.includes('\n') || insert.length > current.length * 3 + 8) return [];
+  // Only a word-for-word swap: the flagged text is one word and so is the
+  // suggestion ("write round/rounds" offers a choice, so it is advice).
+  if (current === insert || !/^[\w-]+$/.test(current) || !/^[\w-]+$/.test(insert)) return [];
   return [{ label: `Replace “${current}” with “${insert}”`, from, to, insert }];
 }

@@ -288,4 +288,21 @@ describe('the studio in Chromium', () => {
     await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toContain('Adds up in 3 sizes');
     await page.close();
   }, 120_000);
+
+  it('offers a quick fix where the compiler names the exact word, and applying it clears the problem', async () => {
+    const TYPO = [
+      'title "Lantern Mitts"', 'sizes S M L', 'gauge 32 sts and 36 rounds per 10 cm', 'yarn A "Lamp Black" #2b2622', 'yarn Gold "Lantern Gold" #e0a526',
+      'work in the round', 'cast on 56/64/72 in A', 'rounds 1-4: (k2, p2) to end', 'round 5: k to end in Gild', '',
+    ].join('\n');
+    const id = await newPattern(`Lantern Mitts typo ${Date.now()}`, TYPO);
+    const page = await h.context.newPage();
+    await openPattern(page, id, /error/);
+    await page.keyboard.press('Alt+2');
+    const problem = page.getByRole('list', { name: 'Problems' }).getByRole('listitem').filter({ hasText: 'LW202' });
+    expect(await problem.textContent()).toContain('Gild');
+    await problem.getByRole('button', { name: /Fix: Replace “Gild” with “Gold”/ }).click();
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toContain('Adds up in 3 sizes');
+    expect(await page.locator('.cm-content').textContent()).toContain('round 5: k to end in Gold');
+    await page.close();
+  }, 120_000);
 });
