@@ -24,12 +24,17 @@ export const router = createBrowserRouter([
       { path: 'reset-password/:token', lazy: () => import('./routes/ResetSet') },
       { path: 'invitations/:token', lazy: () => import('./routes/AcceptInvitation') },
       { path: 'dev/outbox', lazy: () => import('./routes/DevOutbox') },
+      { path: 'shop', lazy: () => import('./routes/Shop') },
+      { path: 'shop/:id', lazy: () => import('./routes/ShopListing') },
       {
         element: <RequireSession />,
         children: [
           { path: 'patterns', lazy: () => import('./routes/Library') },
           { path: 'patterns/:id', lazy: () => import('./routes/Workspace') },
           { path: 'account', lazy: () => import('./routes/Account') },
+          { path: 'shop/thanks', lazy: () => import('./routes/ShopThanks') },
+          { path: 'sales', lazy: () => import('./routes/Sales') },
+          { path: 'patterns/:id/listing', lazy: () => import('./routes/ListingEditor') },
         ],
       },
       { path: '*', lazy: () => import('./routes/NotFound') },

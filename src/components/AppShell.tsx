@@ -28,11 +28,11 @@ export function AppShell() {
           <BrandMark />
           <span className="text-[1.05rem] font-semibold tracking-tight">Loopwright</span>
         </Link>
-        {user && (
-          <nav aria-label="Main" className="flex items-center gap-1">
-            <NavLink to="/patterns" end className={navClass}>Patterns</NavLink>
-          </nav>
-        )}
+        <nav aria-label="Main" className="flex items-center gap-1">
+          {user && <NavLink to="/patterns" end className={navClass}>Patterns</NavLink>}
+          <NavLink to="/shop" className={navClass}>Shop</NavLink>
+          {user?.roles.includes('designer') && <NavLink to="/sales" className={navClass}>Sales</NavLink>}
+        </nav>
         <div className="ml-auto flex items-center gap-3">
           {navigation.state === 'loading' && (
             <span role="status" className="text-caption text-tide-600">Loading…</span>
