@@ -8,6 +8,7 @@
 import type { ChartBlock } from '../notation';
 import { OP, STITCHES, stitchByName, type StitchInfo } from '../notation';
 import type { Reporter } from './context';
+import { closestName } from '../diagnostics';
 import type { ResolvedHeader } from './header';
 import type { SourceTable } from './sources';
 
@@ -80,7 +81,7 @@ export function prepareCharts(charts: readonly ChartBlock[], head: ResolvedHeade
       let yarn = -1;
       if (k.yarn) {
         const i = head.yarnIndex.get(k.yarn.name);
-        if (i === undefined) rep.report('LW202', k.yarn.span, { name: k.yarn.name, suggest: '' });
+        if (i === undefined) rep.report('LW202', k.yarn.span, { name: k.yarn.name, suggest: closestName(k.yarn.name, head.yarnIndex.keys()) ?? '' });
         else yarn = i;
       }
       const st = k.stitch ?? knit;

@@ -32,6 +32,11 @@ export interface ColumnInfo { yarn: number; src: number; round: number }
 /** Name of the first segment of a round when no marker sits at its start. */
 export const START_SEGMENT = 'start';
 
+/**
+ * The stitch machine of one size. Holds the size's store and, while a round
+ * is worked, the needle it reads (`in*`, working order), the cursor
+ * (`pos` within the scope [pos, end)), counters and markers. Not reentrant.
+ */
 export class Machine {
   readonly store = new StitchStore(4096);
   readonly columns: ColumnInfo[] = [];

@@ -10,7 +10,7 @@ import type { Machine } from './machine';
 import { FLAG } from './store';
 import type { ChartRow } from './charts';
 
-import type { Facts } from '../diagnostics';
+import { closestName, type Facts } from '../diagnostics';
 
 const sizeFacts = (m: Machine): Facts => (m.scopeName ? { word: m.word, round: m.roundNo, segment: m.scopeName } : { word: m.word, round: m.roundNo });
 
@@ -104,7 +104,7 @@ export function consumption(m: Machine, ops: readonly Op[]): number | null {
 function chartRow(m: Machine, op: Extract<Op, { type: 'chart' }>, report: boolean): ChartRow | null {
   const chart = m.charts.get(op.chart.name);
   if (!chart) {
-    if (report) m.ctx.reporter.report('LW203', op.chart.span, { name: op.chart.name, suggest: '' });
+    if (report) m.ctx.reporter.report('LW203', op.chart.span, { name: op.chart.name, suggest: closestName(op.chart.name, m.charts.keys()) ?? '' });
     return null;
   }
   if (chart.rows.length === 0) return null;

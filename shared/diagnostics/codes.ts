@@ -39,7 +39,7 @@ const list: CodeInfo[] = [
   { code: 'LW202', title: 'Unknown yarn', severity: 'error',
     message: (f) => `there is no yarn called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : `declare it: yarn ${f.name} "label" #rrggbb`) },
   { code: 'LW203', title: 'Unknown chart', severity: 'error',
-    message: (f) => `there is no chart called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : undefined) },
+    message: (f) => `there is no chart called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : `define it with a block "chart ${f.name}:", its key and its rows`) },
   { code: 'LW204', title: 'Unknown segment', severity: 'error',
     message: (f) => `round ${f.round} has no segment called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => (f.known ? `segments on the needle then: ${f.known}` : 'a segment starts at a marker placed with "mark NAME"') },

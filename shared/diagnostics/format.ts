@@ -51,7 +51,8 @@ export function closestName(name: string, known: Iterable<string>): string | und
     const d = distance(name.toLowerCase(), k.toLowerCase());
     if (d < bestD) { bestD = d; best = k; }
   }
-  return bestD <= Math.max(1, Math.floor(name.length / 3)) ? best : undefined;
+  // Close enough to be a slip (a swap of two letters counts 2), and not a different short name altogether.
+  return bestD <= Math.max(2, Math.floor(name.length / 3)) && bestD < name.length ? best : undefined;
 }
 
 function distance(a: string, b: string): number {
