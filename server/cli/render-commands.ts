@@ -1,6 +1,6 @@
 /**
  * The render commands of `npm run loop`:
- *   chart FILE [--size NAME] [--back] [-o out.svg]
+ *   chart FILE [--size NAME] [--back] [--rounds A-B] [-o out.svg]
  *   instructions FILE [--size NAME]
  *   summary FILE [--size NAME] [--item hat|hand]
  *   plan FILE --rounds A-B [--segment NAME]
@@ -19,7 +19,7 @@ import { readSource } from './loop.ts';
 export const RENDER_COMMANDS = ['chart', 'instructions', 'summary', 'plan'] as const;
 
 const USAGE = [
-  'usage: npm run loop -- chart FILE [--size NAME] [--back] [-o out.svg]',
+  'usage: npm run loop -- chart FILE [--size NAME] [--back] [--rounds A-B] [-o out.svg]',
   '       npm run loop -- instructions FILE [--size NAME]',
   '       npm run loop -- summary FILE [--size NAME] [--item hat|hand]',
   '       npm run loop -- plan FILE --rounds A-B [--segment NAME]',
@@ -48,7 +48,7 @@ export function parseRenderArgs(argv: string[]): RenderArgs | { error: string } 
       const v = take(); if (typeof v !== 'string') return v;
       if (v !== 'hat' && v !== 'hand') return { error: `--item is hat or hand, not "${v}"\n${USAGE}` };
       args.item = v;
-    } else if (flag === '--rounds' && command === 'plan') {
+    } else if (flag === '--rounds' && (command === 'plan' || command === 'chart')) {
       const v = take(); if (typeof v !== 'string') return v;
       const m = /^(\d+)-(\d+)$/.exec(v);
       if (!m || Number(m[1]) < 1 || Number(m[2]) < Number(m[1])) return { error: `--rounds takes a range like 12-20, not "${v}"\n${USAGE}` };
@@ -90,8 +90,9 @@ export function runRenderCommand(
   if (!result.ok) problems(args.file, result, err);
   const code = result.ok ? 0 : 1;
   if (args.command === 'chart') {
-    const model = buildChart(result, args.size);
+    const model = buildChart(result, args.size, args.rounds ? { rounds: { first: args.rounds[0], last: args.rounds[1] } } : {});
     if (!model) { err(`${args.file}: nothing to chart`); return Math.max(code, 1); }
+    if (model.rows.length === 0) { err(`${args.file}: no rounds in ${args.rounds?.join('-')}`); return 2; }
     const svg = args.back ? renderBackSvg(model) : renderChartSvg(model);
     if (args.out) {
       try { write(args.out, svg); } catch (e) { err(`cannot write ${args.out}: ${(e as Error).message}`); return 2; }

@@ -9,7 +9,8 @@
  * - The cells of a row that are not null are exactly the stitches on the
  *   needle after that round (front + backing), each once, plus one
  *   bind-off cell per stitch the round bound off.
- * - Rows are in working order: rows[0] is round/row 1 (drawn at the bottom).
+ * - Rows are in working order: rows[0] is round/row 1 (drawn at the bottom),
+ *   or the first round of `options.rounds`.
  * - x is counted from the LEFT edge as drawn (x = width - 1 - position from the right).
  */
 import type { CompileResult, Span } from '../index';
@@ -93,6 +94,8 @@ export interface ChartModel {
 export interface ChartOptions {
   /** Float limit in stitches for highlighting; default: from the header and gauge, else none. */
   floatLimitStitches?: number | null;
+  /** Only these rounds (rows), inclusive, for a window of a long chart; default all. Columns stay those of the whole chart. */
+  rounds?: { first: number; last: number };
 }
 
 const FALLBACK_COLOUR = '#ffffff';
@@ -119,7 +122,10 @@ export function buildChart(result: CompileResult, size?: string, options: ChartO
   const used = new Set<SymbolId>();
   let hasEmpty = false;
   const width = layout.width;
-  const rows: ChartRow[] = level.rounds.map((rec, r) => {
+  const inWindow = (n: number) => !options.rounds || (n >= options.rounds.first && n <= options.rounds.last);
+  const rows: ChartRow[] = [];
+  level.rounds.forEach((rec, r) => {
+    if (!inWindow(rec.number)) return;
     const pos = layout.positions[r];
     const xOf = (stitch: number) => width - 1 - pos[stitch];
     const cells: (ChartCell | null)[] = new Array<ChartCell | null>(width).fill(null);
@@ -162,10 +168,10 @@ export function buildChart(result: CompileResult, size?: string, options: ChartO
         }),
       };
     });
-    return {
+    rows.push({
       number: rec.number, side: rec.side, readFrom: flat && rec.side === 'WS' ? 'left' : 'right', cells,
       front: rec.front, backing: rec.backing, markers, floats, note: rec.note, span: rec.span,
-    };
+    });
   });
   if (hasEmpty) used.add('no-stitch');
   const legend = SYMBOLS.map((d) => d.id).filter((id) => used.has(id));

@@ -20,6 +20,10 @@ describe('render commands (exit codes as check: 0 ok, 1 errors, 2 usage or unrea
     const back = run(['chart', ex('tidepool-cowl.loop'), '--back', '-o', 'out.svg']);
     expect(back.code).toBe(0);
     expect(back.files.get('out.svg')).toContain('back of the work');
+    const window = run(['chart', ex('tidepool-cowl.loop'), '--rounds', '11-16']);
+    expect(window.code).toBe(0);
+    expect(window.out.match(/<g class="row" data-round="/g)?.length).toBe(6);
+    expect(run(['chart', ex('tidepool-cowl.loop'), '--rounds', '900-901']).code).toBe(2);
   });
 
   it('instructions prints text with counts', () => {
