@@ -12,6 +12,7 @@ import { createSequelize } from './db/connection.ts';
 import { startPrivateMariaDB, type PrivateMariaDB } from './db/launcher.ts';
 import { migrate } from './db/migrate.ts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from './db/seed.ts';
+import { seedReviewDemo } from './db/seed-review.ts';
 import { startFakePayments } from './fakes/payments.ts';
 import { startFakeSmtp, type FakeSmtp } from './fakes/smtp.ts';
 import { createMailer, type Mailer } from './mail/mailer.ts';
@@ -57,6 +58,7 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
     await migrate(sequelize);
     const seeded = await seedDemo(sequelize);
     if (seeded.users || seeded.patterns) console.log(`Demo data: ${seeded.users} account(s) and ${seeded.patterns} pattern(s) added.`);
+    await seedReviewDemo(sequelize);
 
     let smtp: FakeSmtp | null = null;
     let mailer: Mailer;
