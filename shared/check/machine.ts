@@ -228,7 +228,7 @@ export class Machine {
       if (f & FLAG.MANAGED) { this.autoBacking(i); continue; }
       this.problem = true;
       this.merged.add(`${this.side}:${this.front}`);
-      this.ctx.report('LW401', this.sources.spans[src], { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] }, `c${this.inCol[i]}`);
+      this.ctx.report('LW401', this.sources.spans[src], { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] });
       return i;
     }
     return -1;

@@ -399,7 +399,9 @@ function startsStatement(tokens: IToken[], i: number): boolean {
     if (tokens[j]?.tokenType !== T.NumberLit) return false;
     while (tokens[j + 1]?.tokenType === T.Slash && tokens[j + 2]?.tokenType === T.NumberLit) j += 2;
     const after = tokens[j + 1]?.tokenType;
-    return after === T.Colon || after === T.Dash || after === T.Every || after === T.At || after === T.In;
+    if (after === T.Colon || after === T.Dash || after === T.Every || after === T.At || after === T.In) return true;
+    // "round 3 k to end" (colon forgotten) still starts a line when it is the first word on its line.
+    return i > 0 && (tokens[i - 1].endLine ?? 0) < (tokens[i].startLine ?? 0);
   }
   if (t === T.Chart) return tokens[i + 1]?.tokenType === T.Name && tokens[i + 2]?.tokenType === T.Colon;
   return false;
