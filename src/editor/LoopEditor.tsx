@@ -10,7 +10,7 @@ import { useEffect, useRef } from 'react';
 import { Compartment, EditorState, type Extension } from '@codemirror/state';
 import { EditorView, highlightActiveLine, highlightActiveLineGutter, keymap, lineNumbers } from '@codemirror/view';
 import {
-  copyLineDown, copyLineUp, deleteLine, history, historyKeymap, indentLess, indentMore, indentWithTab, moveLineDown, moveLineUp, selectLine, standardKeymap,
+  copyLineDown, copyLineUp, deleteLine, history, historyKeymap, insertNewline, moveLineDown, moveLineUp, selectLine,
 } from '@codemirror/commands';
 import { completionKeymap } from '@codemirror/autocomplete';
 import '../styles/editor.css';
@@ -81,18 +81,21 @@ async function openSearch(view: EditorView): Promise<void> {
 }
 
 /**
- * Line commands on top of the standard keys (the full default keymap also
- * binds bracket and syntax-tree commands that a pattern source has no use for).
+ * Keys beyond what the browser's own editing already does in the editor
+ * (moving, selecting and deleting by character, word and line are left to
+ * the browser, which CodeMirror follows): a plain new line on Enter (a
+ * pattern source has no automatic indentation) and line commands. Leaving
+ * out CodeMirror's standard keymap and its indentation machinery keeps the
+ * workspace inside its download budget.
  */
 const lineKeys = [
+  { key: 'Enter', run: insertNewline },
   { key: 'Alt-ArrowUp', run: moveLineUp },
   { key: 'Alt-ArrowDown', run: moveLineDown },
   { key: 'Shift-Alt-ArrowUp', run: copyLineUp },
   { key: 'Shift-Alt-ArrowDown', run: copyLineDown },
   { key: 'Shift-Mod-k', run: deleteLine },
   { key: 'Mod-l', run: selectLine, preventDefault: true },
-  { key: 'Mod-[', run: indentLess },
-  { key: 'Mod-]', run: indentMore },
 ];
 
 export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onReady, extraKeys, readOnly = false }: LoopEditorProps) {
@@ -117,7 +120,7 @@ export function LoopEditor({ docKey, initialDoc, onDocChange, onCursorLine, onRe
           extraKeys ?? [],
           EditorState.readOnly.of(readOnly),
           searchSlot.of([]),
-          keymap.of([...standardKeymap, ...lineKeys, ...historyKeymap, ...completionKeymap, indentWithTab]),
+          keymap.of([...completionKeymap, ...lineKeys, ...historyKeymap]),
           loopExtensions(),
           EditorView.contentAttributes.of({ 'aria-label': 'Pattern source', spellcheck: 'false', autocapitalize: 'off', autocorrect: 'off' }),
           EditorView.updateListener.of((u) => {

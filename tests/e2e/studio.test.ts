@@ -303,6 +303,20 @@ describe('the studio in Chromium', () => {
     await problem.getByRole('button', { name: /Fix: Replace “Gild” with “Gold”/ }).click();
     await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toContain('Adds up in 3 sizes');
     expect(await page.locator('.cm-content').textContent()).toContain('round 5: k to end in Gold');
+
+    // Plain typing: Enter starts a line, Backspace deletes, and the new round is checked.
+    await page.locator('.cm-content').click();
+    await page.keyboard.press('Control+End');
+    await page.keyboard.type('round 6: k to endd');
+    await page.keyboard.press('Escape');
+    await page.keyboard.press('Backspace');
+    await page.keyboard.press('Enter');
+    await page.keyboard.type('round 7: k to end');
+    await page.keyboard.press('Escape');
+    await expect.poll(() => page.locator('.cm-line').filter({ hasText: /^round [67]: k to end$/ }).count(), { timeout: 10_000 }).toBe(2);
+    await expect.poll(() => page.getByTestId('check-status').textContent(), { timeout: 10_000 }).toContain('Adds up in 3 sizes');
+    await page.keyboard.press('Alt+1');
+    await expect.poll(() => page.getByRole('row', { name: /^Round 7/ }).count()).toBe(1);
     await page.close();
   }, 120_000);
 });
