@@ -22,6 +22,7 @@ import { commentRoutes } from './routes/comments.ts';
 import { devRoutes } from './routes/dev.ts';
 import { diffRoutes } from './routes/diff.ts';
 import { exportRoutes } from './routes/exports.ts';
+import { ExportQueue } from './services/exports/jobs.ts';
 import { healthRoutes } from './routes/health.ts';
 import { memberRoutes } from './routes/members.ts';
 import { patternRoutes } from './routes/patterns.ts';
@@ -134,8 +135,10 @@ export function createApp(opts: AppOptions): Express {
   api.use(shopRoutes(ctx, payments));
   api.use(reviewRoutes(ctx));
   api.use(releaseRoutes(ctx));
-  api.use(diffRoutes());
-  api.use(exportRoutes());
+  // One worker thread per app for exports and diffs (started on first use).
+  const workQueue = new ExportQueue();
+  api.use(diffRoutes(workQueue));
+  api.use(exportRoutes(workQueue));
   api.use(adminRoutes());
   if (env === 'development' || env === 'test') api.use(devRoutes(opts.outbox ?? null));
   api.use((req, _res, next) => next(new AppError(404, 'not-found', `There is no API route ${req.method} ${req.baseUrl}${req.path}.`)));

@@ -1,5 +1,5 @@
 /**
- * Export jobs: a queue in front of one worker thread (the machine has few
+ * Export jobs (and revision diffs): a queue in front of one worker thread (the machine has few
  * cores, and a PDF of a big pattern takes seconds). A job is created by a
  * user, runs in the worker, reports progress 0..1, and keeps its file for
  * {@link JOB_TTL_MS} after it finishes. Jobs live in this process's memory:
@@ -11,7 +11,7 @@ import { Worker } from 'node:worker_threads';
 import type { ApiExportJob } from '../../../shared/api-schemas.ts';
 import type { ExportFile, ExportFormat } from './build.ts';
 import type { ExportInput } from './document.ts';
-import type { WorkerAnswer, WorkerRequest } from './worker.ts';
+import type { DiffTask, WorkerAnswer, WorkerRequest } from './worker.ts';
 
 /** How long a finished job and its file are kept (10 minutes). */
 export const JOB_TTL_MS = 10 * 60 * 1000;
@@ -36,7 +36,7 @@ export interface ExportJob {
 /** The queue; one per app. */
 export class ExportQueue {
   private readonly jobs = new Map<string, ExportJob>();
-  private readonly waiting: { job: ExportJob; input: ExportInput; settle: () => void }[] = [];
+  private readonly waiting: { job: ExportJob; input: ExportInput | null; diff?: DiffTask; settle: () => void }[] = [];
   private running: { job: ExportJob; settle: () => void } | null = null;
   private worker: Worker | null = null;
 
@@ -52,6 +52,22 @@ export class ExportQueue {
     this.waiting.push({ job, input, settle });
     this.pump();
     return job;
+  }
+
+  /**
+   * Diffs two sources in the worker (shared/diff: two compiles, which take
+   * a while for big patterns). Resolves with `{semantic, text}`; rejects when
+   * the worker fails.
+   */
+  async diff(task: DiffTask): Promise<{ semantic: unknown; text: string }> {
+    let settle: () => void = () => {};
+    const finished = new Promise<void>((resolve) => { settle = resolve; });
+    const job: ExportJob = { id: randomBytes(12).toString('base64url'), ownerId: -1, format: 'txt', state: 'queued', progress: 0, filename: 'diff.json', file: null, error: null, finished, finishedAt: null };
+    this.waiting.push({ job, input: null, diff: task, settle });
+    this.pump();
+    await finished;
+    if (!job.file) throw new Error(job.error?.message ?? 'diff failed');
+    return JSON.parse(job.file.bytes.toString('utf8')) as { semantic: unknown; text: string };
   }
 
   /** The job `id` if it belongs to `ownerId` (others get null, as if it did not exist). */
@@ -91,7 +107,7 @@ export class ExportQueue {
     if (!next) return;
     this.running = { job: next.job, settle: next.settle };
     next.job.state = 'running';
-    const req: WorkerRequest = { id: next.job.id, input: next.input, format: next.job.format };
+    const req: WorkerRequest = { id: next.job.id, input: next.input, format: next.job.format, ...(next.diff ? { diff: next.diff } : {}) };
     this.ensureWorker().postMessage(req);
   }
 
