@@ -24,10 +24,12 @@ import { DEMO_PASSWORD, seedDemo } from '../../server/db/seed.ts';
 import { startFakePayments, type FakePayments } from '../../server/fakes/payments.ts';
 import { startFakeSmtp, type FakeSmtp } from '../../server/fakes/smtp.ts';
 import { createMailer, type Mailer } from '../../server/mail/mailer.ts';
-import { Pattern } from '../../server/models/index.ts';
-import { DESIGNER, repoRoot, screenshotDir, shot } from './harness.ts';
+import { Pattern, User } from '../../server/models/index.ts';
+import { repoRoot, screenshotDir, shot } from './harness.ts';
 
 const KNITTER = { email: 'knitter@saltmarsh.example', password: DEMO_PASSWORD };
+/** A designer of this test's own (the demo designer's patterns are reset by the seed test, and orders keep their patterns). */
+const SELLER = { email: `shop-seller-${randomBytes(4).toString('hex')}@test.example`, password: 'shop seller password', name: 'Maren Tolley (shop test)' };
 const SOURCE = [
   'title "Tidepool Cowl"', 'designer "Maren Tolley"', 'sizes S M L', 'gauge 28 sts and 32 rounds per 10 cm',
   'yarn A "Sea lavender" #6a5397', 'yarn B "Foam" #eeeae0', 'work in the round', 'cast on 84/96/108 in A',
@@ -77,8 +79,11 @@ beforeAll(async () => {
   server.on('request', app);
   fake.setWebhookUrl(`${baseUrl}/api/payments/webhook`);
 
-  // Arrange: a fresh released pattern of the demo designer, on sale (release set directly; the review flow has its own tests).
-  const designer = await token(DESIGNER.email, DESIGNER.password);
+  // Arrange: a fresh released pattern of a fresh designer, on sale (release set directly; the review flow has its own tests).
+  const reg = await fetch(`${baseUrl}/api/auth/register`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(SELLER) });
+  expect(reg.status).toBe(201);
+  await User.update({ roles: ['designer'] }, { where: { email: SELLER.email } });
+  const designer = await token(SELLER.email, SELLER.password);
   title = `Tidepool Cowl ${randomBytes(3).toString('hex')}`;
   const created = await api<{ pattern: { id: number } }>(designer, 'POST', '/api/patterns', { title, source: SOURCE });
   patternId = created.body.pattern.id;
@@ -160,8 +165,8 @@ describe('buying a pattern in Chromium', () => {
     await page.evaluate(() => fetch('/api/auth/logout', { method: 'POST', credentials: 'include' }));
     await page.goto(`${baseUrl}/sales`);
     await page.waitForURL(/\/sign-in/);
-    await page.getByLabel('E-mail').fill(DESIGNER.email);
-    await page.getByLabel('Password').fill(DESIGNER.password);
+    await page.getByLabel('E-mail').fill(SELLER.email);
+    await page.getByLabel('Password').fill(SELLER.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(/\/sales$/);
     const row = page.getByRole('row', { name: new RegExp(title) }).filter({ hasText: 'Sorrel Quayle' });
