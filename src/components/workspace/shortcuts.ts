@@ -33,7 +33,9 @@ export const SHORTCUTS: readonly Shortcut[] = [
   { keys: ['Alt', '0'], label: 'Move focus back to the editor', group: 'Panes' },
   { keys: ['Ctrl', 'Space'], label: 'Suggest stitches, keywords and names', group: 'Editing' },
   { keys: ['Mod', 'F'], label: 'Find and replace', group: 'Editing' },
+  { keys: ['Alt', '↑'], label: 'Move the line up (↓ down)', group: 'Editing' },
   { keys: ['Mod', 'Z'], label: 'Undo', group: 'Editing' },
   { keys: ['Mod', 'Shift', 'Z'], label: 'Redo', group: 'Editing' },
+  { keys: ['Tab'], label: 'Leave the editor for the next control', group: 'Editing' },
   { keys: ['F1'], label: 'Show this list (or ? outside the editor)', group: 'Editing' },
 ];
