@@ -13,6 +13,7 @@ import { startPrivateMariaDB, type PrivateMariaDB } from './db/launcher.ts';
 import { migrate } from './db/migrate.ts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from './db/seed.ts';
 import { seedReviewDemo } from './db/seed-review.ts';
+import { seedShopDemo } from './db/seed-shop.ts';
 import { startFakePayments } from './fakes/payments.ts';
 import { startFakeSmtp, type FakeSmtp } from './fakes/smtp.ts';
 import { createMailer, type Mailer } from './mail/mailer.ts';
@@ -59,6 +60,7 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
     const seeded = await seedDemo(sequelize);
     if (seeded.users || seeded.patterns) console.log(`Demo data: ${seeded.users} account(s) and ${seeded.patterns} pattern(s) added.`);
     await seedReviewDemo(sequelize);
+    await seedShopDemo(sequelize);
 
     let smtp: FakeSmtp | null = null;
     let mailer: Mailer;
