@@ -319,4 +319,35 @@ describe('the studio in Chromium', () => {
     await expect.poll(() => page.getByRole('row', { name: /^Round 7/ }).count()).toBe(1);
     await page.close();
   }, 120_000);
+
+  it('takes the newer revision on a conflict without losing the designer’s text, which can be brought back', async () => {
+    const id = await newPattern(`Lantern Mitts conflict ${Date.now()}`);
+    const mine = await h.context.newPage();
+    await openPattern(mine, id);
+    const theirs = await h.context.newPage();
+    await openPattern(theirs, id);
+    await replaceEditorLine(theirs, 11, 'round 6: k to end  # theirs');
+    await theirs.keyboard.press('Control+s');
+    await theirs.getByRole('dialog', { name: 'Save a revision' }).getByLabel('What changed?').fill('Theirs');
+    await theirs.getByRole('button', { name: 'Save revision' }).click();
+    await theirs.getByText('Saved as revision #2.').waitFor();
+
+    await mine.bringToFront();
+    await replaceEditorLine(mine, 11, 'round 6: k to end  # mine');
+    await mine.keyboard.press('Control+s');
+    await mine.getByRole('dialog', { name: 'Save a revision' }).getByLabel('What changed?').fill('Mine');
+    await mine.getByRole('button', { name: 'Save revision' }).click();
+    const conflict = mine.getByRole('dialog', { name: /Revision #2 was saved while you were editing/ });
+    await conflict.getByRole('button', { name: /Take revision #2/ }).click();
+    await expect.poll(() => mine.locator('.cm-content').textContent()).toContain('# theirs');
+    expect(await mine.getByTestId('revision-line').textContent()).toContain('Revision #2');
+    expect(await mine.getByTestId('unsaved').count()).toBe(0);
+    expect(await mine.evaluate((key) => localStorage.getItem(key), `loopwright:set-aside:${id}`)).toContain('# mine');
+
+    await mine.getByRole('button', { name: 'Bring my version back' }).click();
+    await expect.poll(() => mine.locator('.cm-content').textContent()).toContain('# mine');
+    expect(await mine.getByTestId('unsaved').isVisible()).toBe(true);
+    await mine.close();
+    await theirs.close();
+  }, 120_000);
 });
