@@ -21,5 +21,5 @@ export type { KeyEntry } from './phrases';
 export { summarize } from './summary';
 export type { FloatReportEntry, PatternSummary, SizeSummary, SummaryOptions } from './summary';
 export { formatSummaryText } from './summary-text';
-export { planBacking, formatPlanText, floatRuns, stabIntervals } from './planner';
+export { planBacking, formatPlanText, floatRuns, stabIntervals, coverCircle } from './planner';
 export type { PlanRequest, PlanResult, SizePlan } from './planner';

@@ -33,12 +33,13 @@
  *    swapping o1 for g1 leaves O a valid set of the same size. The rest of
  *    O hits every interval g1 misses; by induction on those, the greedy
  *    needs no more points than O. Hence the greedy is optimal.
- * 4. In the round, windows that cross the start of the round are split in
- *    two pieces (no column can sit at the start of the round); the linear
- *    intervals are covered first, then any crossing window left unhit gets
- *    one more point. Cutting a circle this way costs at most one column
- *    more than the optimum (the known bound for stabbing arcs by cutting
- *    the circle at a point).
+ * 4. In the round, a window can cross the start of the round (where no
+ *    column can sit). Any solution has a point in the first crossing window
+ *    W; for each allowed boundary c of W (at most L of them) we fix c, turn
+ *    the circle into a line starting at c (every interval not holding c is
+ *    then an ordinary interval) and run the greedy on the rest; the best of
+ *    these is optimal, since an optimal set holds some c of W and the greedy
+ *    is optimal for the rest.
  * The segment limits where columns may go (never at the segment's edges).
  */
 import { compile, type CompileResult } from '../index';
@@ -68,6 +69,12 @@ export interface SizePlan {
   extraStitches: number;
   /** Yarns that would need columns too (one ladder per segment can run at a time). */
   otherYarns: string[];
+  /**
+   * For the other yarns: where to catch them by hand (`catch YARN` before
+   * the front stitch after `after` front stitches, counted as the columns
+   * are), per round, the fewest catches per round by the same greedy.
+   */
+  catches: { yarn: string; round: number; after: number[] }[];
 }
 
 /** The planner's answer. */
@@ -231,6 +238,47 @@ export function stabIntervals(intervals: readonly (readonly [number, number])[],
   return { points, unhittable };
 }
 
+/**
+ * The fewest boundaries (1..n-1; 0 is the start of the round) hitting every
+ * cyclic interval [lo, hi] (hi may pass n: it wraps). Exact: see step 4.
+ */
+export function coverCircle(intervals: readonly (readonly [number, number])[], n: number): number[] {
+  const holds = (iv: readonly [number, number], p: number) => (p >= iv[0] && p <= iv[1]) || (p + n >= iv[0] && p + n <= iv[1]);
+  const crossing = intervals.find((iv) => iv[1] >= n) ?? intervals[0];
+  if (!crossing) return [];
+  let best: number[] | null = null;
+  for (let c = crossing[0]; c <= crossing[1]; c++) {
+    const cut = c % n;
+    if (cut === 0) continue;
+    // Unroll: u = (p - cut) mod n; the start of the round (p = 0) becomes u = n - cut, which stays forbidden.
+    const rest: [number, number][] = [];
+    for (const iv of intervals) {
+      if (holds(iv, cut)) continue;
+      const a = (((iv[0] - cut) % n) + n) % n;
+      rest.push([a, a + (iv[1] - iv[0])]);
+    }
+    const forbidden = n - cut;
+    const points = stabWhere(rest, (u) => u >= 1 && u <= n - 1 && u !== forbidden);
+    if (points === null) continue;
+    const mapped = [cut, ...points.map((u) => (u + cut) % n)];
+    if (!best || mapped.length < best.length) best = mapped;
+  }
+  return best ?? [];
+}
+
+/** The greedy with an allowed-point test: null when some interval has no allowed point. */
+function stabWhere(intervals: readonly (readonly [number, number])[], isAllowed: (p: number) => boolean): number[] | null {
+  const points: number[] = [];
+  for (const [lo, hi] of [...intervals].sort((x, y) => x[1] - y[1])) {
+    if (points.length && points[points.length - 1] >= lo) continue;
+    let p = hi;
+    while (p >= lo && !isAllowed(p)) p--;
+    if (p < lo) return null;
+    points.push(p);
+  }
+  return points;
+}
+
 /** Plans one size; null (with a problem) when it cannot. */
 function planSize(s: SizeModel, result: CompileResult, req: PlanRequest, limit: number, problems: string[]): SizePlan | null {
   const views = viewRounds(s, req, problems);
@@ -248,7 +296,7 @@ function planSize(s: SizeModel, result: CompileResult, req: PlanRequest, limit: 
     return max;
   });
   const order = yarns.map((_, y) => y).filter((y) => worst[y] > limit).sort((a, b) => worst[b] - worst[a] || a - b);
-  if (order.length === 0) return { size: s.name, yarn: null, columns: [], extraStitches: 0, otherYarns: [] };
+  if (order.length === 0) return { size: s.name, yarn: null, columns: [], extraStitches: 0, otherYarns: [], catches: [] };
   const y = order[0];
   const [s0, s1] = views[0].seg;
   const lo0 = Math.max(1, s0 + 1), hi0 = Math.min(n - 1, s1 - 1);
@@ -268,18 +316,38 @@ function planSize(s: SizeModel, result: CompileResult, req: PlanRequest, limit: 
     }
   }
   const clip = ([a, b]: [number, number]): [number, number] => [Math.max(a, lo0), Math.min(b, hi0)];
-  const stabbed = stabIntervals(linear, lo0, hi0);
-  const chosen = stabbed.points;
-  let unfixable = stabbed.unhittable;
-  for (const pieces of wrapping) {
-    const clipped = pieces.map(clip).filter(([a, b]) => a <= b);
-    if (clipped.length === 0) { unfixable++; continue; }
-    if (clipped.some(([a, b]) => chosen.some((p) => p >= a && p <= b))) continue;
-    chosen.push(clipped[0][1]);
+  let chosen: number[];
+  let unfixable = 0;
+  if (wrapping.length && lo0 === 1 && hi0 === n - 1) {
+    // The whole round, with floats across its start: exact, by fixing one point of a crossing window.
+    const all = [...linear, ...wrapping.map((w) => [w[0][0], w[1][1] + n] as [number, number])];
+    chosen = coverCircle(all, n);
+  } else {
+    // Within a segment at most one piece of a crossing window survives the clipping: it is an ordinary interval.
+    const pieces = wrapping.map((w) => w.map(clip).filter(([a, b]) => a <= b)[0] ?? ([1, 0] as [number, number]));
+    const stabbed = stabIntervals([...linear, ...pieces], lo0, hi0);
+    chosen = stabbed.points;
+    unfixable = stabbed.unhittable;
   }
   if (unfixable) problems.push(`Size ${s.name}: ${unfixable} stretch${unfixable === 1 ? '' : 'es'} of float cannot be cut inside ${req.segment ? `segment ${req.segment}` : 'the round'}; a column would have to sit outside it.`);
   const columns = [...new Set(chosen)].sort((a, b) => a - b).map((p) => p - s0);
-  return { size: s.name, yarn: yarns[y], columns, extraStitches: columns.length, otherYarns: order.slice(1).map((k) => yarns[k]) };
+  // Catches for the other yarns, round by round (a catch is worked on one round only).
+  const catches: SizePlan['catches'] = [];
+  for (const y2 of order.slice(1)) {
+    for (const v of views) {
+      if (!v.front.some((f) => f === y2) && v.backAt[y2].length === 0) continue;
+      const ivs: [number, number][] = [];
+      for (const [start, len] of floatRuns(v.front, v.backAt[y2], y2, cyclic)) {
+        for (let w = 0; w + limit < len; w++) {
+          const lo = (start + w + 1) % n, hi = lo + limit - 1;
+          if (hi < n) ivs.push([lo, hi]);
+        }
+      }
+      const hit = stabIntervals(ivs, lo0, hi0).points;
+      if (hit.length) catches.push({ yarn: yarns[y2], round: v.number, after: hit.map((p) => p - s0) });
+    }
+  }
+  return { size: s.name, yarn: yarns[y], columns, extraStitches: columns.length, otherYarns: order.slice(1).map((k) => yarns[k]), catches };
 }
 
 /** Adds columns in the middle of the widest gaps until there are `count` (more columns never lengthen a float). */
@@ -323,7 +391,7 @@ function ladderLines(plans: SizePlan[], yarn: string, result: CompileResult, req
   }
   const word = result.header.construction === 'flat' ? 'row' : 'round';
   const others = [...new Set(plans.flatMap((p) => p.otherYarns))];
-  if (others.length) problems.push(`Yarn${others.length > 1 ? 's' : ''} ${others.join(', ')} also float too far; one ladder runs per segment at a time, so catch ${others.length > 1 ? 'them' : 'it'} by hand (catch ${others[0]}).`);
+  if (others.length) problems.push(`Yarn${others.length > 1 ? 's' : ''} ${others.join(', ')} also float too far; one ladder runs per segment at a time, so catch ${others.length > 1 ? 'them' : 'it'} by hand with \`catch\` where listed (wrapping floats across the start of the round are not listed).`);
   return `ladder ${yarn} columns ${graded.join(', ')} from ${word} ${req.first} to ${to}${req.segment ? ` at ${req.segment}` : ''}`;
 }
 
@@ -340,6 +408,9 @@ export function formatPlanText(plan: PlanResult): string {
   }
   lines.push('', `Floats over the limit in the range before: ${plan.before.length ? plan.before.length : 'none'}`);
   if (plan.ladderSource) lines.push(`After compiling the patched source: ${plan.after.length ? plan.after.join('; ') : 'none'}`);
+  for (const p of plan.sizes) {
+    for (const c of p.catches) lines.push(`size ${p.size}, ${c.round}: catch ${c.yarn} after front sts ${c.after.join(', ')}`);
+  }
   for (const p of plan.problems) lines.push(`note: ${p}`);
   lines.push(plan.ok ? 'proof: the patched source compiles with no float over the limit in the range' : 'no proof: see the notes');
   return `${lines.join('\n')}\n`;

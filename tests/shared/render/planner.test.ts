@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { compile } from '../../../shared/index.ts';
-import { planBacking, stabIntervals, formatPlanText } from '../../../shared/render/index.ts';
+import { coverCircle, planBacking, stabIntervals, formatPlanText } from '../../../shared/render/index.ts';
 import { HEADER } from './helpers.ts';
 
 /** Smallest number of allowed points hitting every interval, by trying every subset (small cases only). */
@@ -31,6 +31,27 @@ describe('interval cover (the planner\'s core)', () => {
   });
 });
 
+describe('circle cover (floats across the start of the round)', () => {
+  it('hits every cyclic interval with the fewest boundaries, never at the start of the round (property, against brute force)', () => {
+    const n = 11;
+    const holds = (iv: [number, number], p: number) => (p >= iv[0] && p <= iv[1]) || (p + n >= iv[0] && p + n <= iv[1]);
+    const interval = fc.tuple(fc.integer({ min: 0, max: n - 1 }), fc.integer({ min: 1, max: 4 })).map(([a, len]) => [a, a + len] as [number, number]);
+    fc.assert(fc.property(fc.array(interval, { minLength: 1, maxLength: 8 }), (ivs) => {
+      // Only intervals that hold some allowed boundary are posed.
+      const posed = ivs.filter((iv) => Array.from({ length: n - 1 }, (_, i) => i + 1).some((p) => holds(iv, p)));
+      const points = coverCircle(posed, n);
+      expect(points.every((p) => p >= 1 && p <= n - 1)).toBe(true);
+      for (const iv of posed) expect(points.some((p) => holds(iv, p))).toBe(true);
+      let best = Infinity;
+      for (let mask = 0; mask < 1 << (n - 1); mask++) {
+        const chosen = Array.from({ length: n - 1 }, (_, i) => i + 1).filter((_, i) => mask & (1 << i));
+        if (chosen.length < best && posed.every((iv) => chosen.some((p) => holds(iv, p)))) best = chosen.length;
+      }
+      expect(points.length).toBe(posed.length ? best : 0);
+    }), { numRuns: 150, seed: 9 });
+  });
+});
+
 describe('backing-stitch planner', () => {
   const longFloats = `${HEADER}\nsizes S M\ncast on 40/48 in A\nrounds 1-3: (k 9/11 in A, k 1 in B) to end\nround 4: k to end`;
 
@@ -47,6 +68,13 @@ describe('backing-stitch planner', () => {
     // One column per run of 9 (or 11) A stitches: 4 columns each, the fewest possible.
     expect(plan.sizes.map((p) => p.columns.length)).toEqual([4, 4]);
     expect(formatPlanText(plan)).toContain('proof: the patched source compiles');
+  });
+
+  it('finds the optimum when floats cross the start of the round (two columns per 19-stitch float)', () => {
+    const src = `${HEADER}\ncast on 40 in A\nrounds 1-2: k 9 in A, k 1 in B, k 19 in A, k 1 in B, k 10 in A\nround 3: k to end`;
+    const plan = planBacking({ source: src, first: 1, last: 2 });
+    expect(plan.ok).toBe(true);
+    expect(plan.sizes[0].columns.length).toBe(4);
   });
 
   it('carries a yarn that is absent from some rounds with columns at most the limit apart', () => {
