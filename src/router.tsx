@@ -31,6 +31,9 @@ export const router = createBrowserRouter([
         children: [
           { path: 'patterns', lazy: () => import('./routes/Library') },
           { path: 'patterns/:id', lazy: () => import('./routes/Workspace') },
+          { path: 'patterns/:id/review', lazy: () => import('./routes/Review') },
+          { path: 'patterns/:id/review/diff', lazy: () => import('./routes/ReviewDiff') },
+          { path: 'patterns/:id/knit', lazy: () => import('./routes/Knit') },
           { path: 'account', lazy: () => import('./routes/Account') },
           { path: 'shop/thanks', lazy: () => import('./routes/ShopThanks') },
           { path: 'sales', lazy: () => import('./routes/Sales') },

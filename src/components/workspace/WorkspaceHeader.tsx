@@ -75,6 +75,7 @@ export function WorkspaceHeader(p: WorkspaceHeaderProps) {
           Unsaved changes
         </span>
       )}
+      <Link to="review" relative="path" className="btn btn-quiet btn-sm shrink-0" title="Revisions, review and releases">Review</Link>
       <button type="button" className="btn btn-quiet btn-sm shrink-0" onClick={p.onHelp} aria-keyshortcuts="F1" title="Keyboard shortcuts (F1)">
         <span aria-hidden="true">⌨</span>
         <span className="hidden xl:inline">Shortcuts</span>

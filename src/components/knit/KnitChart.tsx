@@ -1,0 +1,44 @@
+/**
+ * The chart of a release in one size with the knitter's current round
+ * shaded and outlined; clicking a round makes it the current one.
+ */
+import { useEffect, useRef } from 'react';
+
+const SVG_NS = 'http://www.w3.org/2000/svg';
+
+/** Shades row `round` of a chart SVG from shared/render; returns the undo. */
+function shadeRow(svg: SVGSVGElement, round: number): () => void {
+  const row = svg.querySelector(`g.row[data-round="${round}"]`);
+  const cells = row ? [...row.children] : [];
+  if (!cells.length) return () => {};
+  const size = Number(svg.querySelector('#cell')?.getAttribute('width') ?? 16);
+  const pos = (el: Element, a: 'x' | 'y') => Number(el.getAttribute(a) ?? el.firstElementChild?.getAttribute(a) ?? 0);
+  const xs = cells.map((c) => pos(c, 'x'));
+  const r = document.createElementNS(SVG_NS, 'rect');
+  r.setAttribute('x', String(Math.min(...xs) - 1));
+  r.setAttribute('y', String(pos(cells[0], 'y') - 1));
+  r.setAttribute('width', String(Math.max(...xs) - Math.min(...xs) + size + 2));
+  r.setAttribute('height', String(size + 2));
+  r.setAttribute('class', 'lw-current-row');
+  r.setAttribute('pointer-events', 'none');
+  svg.append(r);
+  r.scrollIntoView?.({ block: 'center', inline: 'nearest' });
+  return () => r.remove();
+}
+
+export function KnitChart({ svg, current, word, onPick }: { svg: string | null; current: number | null; word: 'Round' | 'Row'; onPick: (round: number) => void }) {
+  const box = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const el = box.current?.querySelector('svg');
+    if (!el || current === null) return;
+    return shadeRow(el, current);
+  }, [svg, current]);
+  if (!svg) return null;
+  return (
+    <div ref={box} className="lw-chart max-h-[32rem] overflow-auto bg-tide-50 p-3" data-testid="knit-chart"
+      onClick={(e) => { const r = Number((e.target as Element).closest?.('[data-round]')?.getAttribute('data-round') ?? NaN); if (Number.isFinite(r)) onPick(r); }}>
+      <div role="img" aria-label={`Chart; the current ${word.toLowerCase()}${current ? ` (${current})` : ''} is outlined. Click a ${word.toLowerCase()} to make it current.`}
+        className="inline-block rounded-stitch border border-tide-200 bg-white" dangerouslySetInnerHTML={{ __html: svg }} />
+    </div>
+  );
+}

@@ -1,0 +1,58 @@
+/**
+ * The new revision's chart of one size (drawn by shared/render in the
+ * render worker) with the diff's changed cells outlined and changed rounds
+ * flagged at both ends of the row. Clicking a row starts a comment on that
+ * round.
+ */
+import { useEffect, useRef, useState, type KeyboardEvent, type MouseEvent } from 'react';
+import type { SizeDiff } from '../../../shared/diff/types';
+import { markCells } from './mark-cells';
+import { useRendered } from './useRendered';
+
+export interface DiffChartProps {
+  source: string | null;
+  size: SizeDiff;
+  revision: number;
+  onCommentRound: (round: number) => void;
+}
+
+export function DiffChart({ source, size, revision, onCommentRound }: DiffChartProps) {
+  const { answer, pending } = useRendered(source, size.size, { cell: 14 });
+  const box = useRef<HTMLDivElement>(null);
+  const [missed, setMissed] = useState(0);
+  const svg = answer && answer.size === size.size ? answer.svg : null;
+  const Word = size.word === 'row' ? 'Row' : 'Round';
+
+  useEffect(() => {
+    const el = box.current?.querySelector('svg');
+    if (!el || !svg) return;
+    const cells = size.cells.filter((c) => c.new).map((c) => ({ round: c.round.new, stitch: c.new?.stitch ?? 0 }));
+    const rows = size.rounds.filter((r) => r.new && r.kind !== 'removed').map((r) => r.new?.number ?? 0);
+    const { missed: m, undo } = markCells(el, cells, rows);
+    setMissed(m);
+    const scroller = box.current;
+    if (scroller) { scroller.scrollTop = scroller.scrollHeight; scroller.scrollLeft = scroller.scrollWidth; }
+    el.querySelector('.lw-diff-cell, .lw-diff-row')?.scrollIntoView({ block: 'center', inline: 'center' });
+    return undo;
+  }, [svg, size]);
+
+  const roundAt = (e: MouseEvent | KeyboardEvent) => Number((e.target as Element).closest?.('[data-round]')?.getAttribute('data-round') ?? NaN);
+  const onClick = (e: MouseEvent) => { const r = roundAt(e); if (Number.isFinite(r)) onCommentRound(r); };
+
+  return (
+    <div>
+      <p className="px-4 py-2 text-caption text-tide-700">
+        Revision #{revision}, size {size.size}: changed cells outlined in red, changed {size.word}s flagged at both ends. Click a {size.word} to comment on it.
+        {size.cellsTotal > size.cells.length && ` Showing ${size.cells.length} of ${size.cellsTotal} changed cells.`}
+        {missed > 0 && ` ${missed} changed cell${missed === 1 ? '' : 's'} could not be placed on the chart.`}
+      </p>
+      <div ref={box} className="lw-chart lw-diff-chart max-h-[28rem] overflow-auto bg-tide-50 p-3" onClick={onClick} data-testid="diff-chart">
+        {!answer || (pending && !svg) ? <p role="status" className="p-4 text-sm text-tide-600">Drawing the chart…</p>
+          : svg ? (
+            <div role="img" aria-label={`Chart of revision ${revision}, size ${size.size}, with ${size.cellsTotal} changed cells marked. ${Word}s can be clicked to comment; the table of changed ${size.word}s has the same buttons.`}
+              className="inline-block rounded-stitch border border-tide-200 bg-white" dangerouslySetInnerHTML={{ __html: svg }} />
+          ) : <p className="p-4 text-sm text-tide-700">{answer.problem ?? 'No chart for this size.'}</p>}
+      </div>
+    </div>
+  );
+}
