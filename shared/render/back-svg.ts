@@ -36,7 +36,7 @@ export function renderBackSvg(model: ChartModel, options: ChartDrawOptions = {})
       while (x + run < row.cells.length && key(x + run) === key(x) && !cell?.isBacking) run++;
       const cx = frame.colX(x);
       if (!cell) cells.push(el('rect', { x: cx, y, width: run * c, height: c, fill: BACK_NO_STITCH }));
-      else if (!cell.isBacking) cells.push(el('rect', { x: cx, y: y + c * 0.8, width: run * c, height: c * 0.2, fill: cell.colour }));
+      else if (!cell.isBacking) cells.push(el('rect', { x: cx, y: y + c * 0.86, width: run * c, height: c * 0.14, fill: cell.colour }));
       else {
         cells.push(el('g', { class: 'backing', 'data-round': row.number, 'data-stitch': cell.stitch + 1, ...spanAttrs(cell.span) }, [
           el('use', { href: '#cell', x: cx, y, fill: cell.colour, stroke: '#000000', 'stroke-width': 1 }),
