@@ -105,3 +105,16 @@ export function useRefund() {
     },
   });
 }
+
+/** Uploads a photo (PNG, JPEG or WebP, at most 5 MB) to the pattern, for use in its listing. */
+export function useUploadListingPhoto(patternId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (file: File) => {
+      const form = new FormData();
+      form.append('file', file);
+      return apiRequest<{ upload: { id: number } }>(`/patterns/${encodeURIComponent(patternId)}/uploads`, { body: form });
+    },
+    onSuccess: () => void qc.invalidateQueries({ queryKey: shopKeys.editor(patternId) }),
+  });
+}

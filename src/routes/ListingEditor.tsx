@@ -4,12 +4,12 @@
  * short description, photos from the pattern's uploads, and whether it is
  * on sale now.
  */
-import { useEffect, useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { Link, useParams } from 'react-router';
 import { CURRENCIES, decimalToMinor, formatMoney, minorToDecimal, MIN_AMOUNT, type CurrencyCode } from '../../shared/shop/money';
 import { LISTING_MAX_PHOTOS } from '../../shared/shop/api';
 import { errorText } from '../api/client';
-import { useListingEditor, useSaveListing } from '../api/useShop';
+import { useListingEditor, useSaveListing, useUploadListingPhoto } from '../api/useShop';
 import { Loading } from '../components/Loading';
 import { Notice } from '../components/Notice';
 import { versionName } from '../components/shop/Price';
@@ -18,6 +18,8 @@ export function Component() {
   const { id = '' } = useParams();
   const editor = useListingEditor(id);
   const save = useSaveListing(id);
+  const upload = useUploadListingPhoto(id);
+  const fileInput = useRef<HTMLInputElement>(null);
   const [currency, setCurrency] = useState<CurrencyCode>('EUR');
   const [priceText, setPriceText] = useState('6.50');
   const [taxInclusive, setTaxInclusive] = useState(true);
@@ -80,7 +82,7 @@ export function Component() {
               </div>
               <label className="mt-6 flex items-center gap-2 text-sm text-tide-800">
                 <input type="checkbox" checked={taxInclusive} onChange={(e) => setTaxInclusive(e.target.checked)} />
-                The price includes tax (VAT)
+                Tax (VAT) included
               </label>
             </div>
             <p id="listing-price-help" className={`-mt-3 text-caption ${priceError ? 'text-glasswort-700' : 'text-tide-600'}`}>
@@ -94,6 +96,16 @@ export function Component() {
             </div>
             <fieldset>
               <legend className="field-label">Photos (up to {LISTING_MAX_PHOTOS}, from this pattern’s uploads)</legend>
+              <input ref={fileInput} type="file" accept="image/png,image/jpeg,image/webp" className="hidden" aria-hidden="true" tabIndex={-1}
+                onChange={(e) => {
+                  const file = e.target.files?.[0];
+                  e.target.value = '';
+                  if (file) upload.mutate(file, { onSuccess: (d) => setPhotoIds((ids) => (ids.length < LISTING_MAX_PHOTOS ? [...ids, d.upload.id] : ids)) });
+                }} />
+              <button type="button" className="btn btn-quiet btn-sm mb-2" onClick={() => fileInput.current?.click()} disabled={upload.isPending}>
+                {upload.isPending ? 'Uploading…' : 'Upload a photo'}
+              </button>
+              {upload.isError && <Notice tone="error" className="mb-2">{errorText(upload.error)}</Notice>}
               {uploads.length === 0 ? (
                 <p className="text-sm text-tide-600">No photos uploaded for this pattern yet. Without photos the shop shows a coarse preview of the chart.</p>
               ) : (
