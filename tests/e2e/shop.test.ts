@@ -4,7 +4,7 @@
  * the app through the official SDK): a signed-out visitor browses the shop,
  * signs in as the demo knitter, buys, pays on the stand-in's page, comes
  * back to the thank-you page, finds the pattern in the library and can read
- * the released revision; the receipt arrives at the fake SMTP server. Then
+ * and export the released revision; the receipt arrives at the fake SMTP server. Then
  * the designer sees the order in the sales table and downloads the CSV.
  */
 import { randomBytes } from 'node:crypto';
@@ -155,6 +155,10 @@ describe('buying a pattern in Chromium', () => {
     const revision = await api<{ revision: { number: number; source: string } }>(knitter, 'GET', `/api/patterns/${patternId}/revisions/1`);
     expect(revision.status).toBe(200);
     expect(revision.body.revision.source).toContain('rounds 5-12');
+    // ... and export it (the export route follows the same access policy).
+    const exported = await fetch(`${baseUrl}/api/patterns/${patternId}/revisions/1/export?format=txt`, { headers: { Authorization: `Bearer ${knitter}` } });
+    expect(exported.status).toBe(200);
+    expect(await exported.text()).toMatch(/cast on/i);
     await page.close();
   }, 120_000);
 
