@@ -17,6 +17,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Entitlement, Order, Pattern, PaymentEvent, Revision } from '../../server/models/index.ts';
 import { PASSWORD } from './helpers.ts';
+import { pngBytes } from './images.ts';
 import { sampleSource } from './sample-source.ts';
 import { checkout, listedPattern, makeUser, startShopHarness, type ShopHarness } from './shop-harness.ts';
 import type { TestUser } from './helpers.ts';
@@ -82,6 +83,25 @@ describe('listings', () => {
     expect(text).not.toContain(firstRound.trim());
     // At most 24 x 24 colour blocks plus the background.
     expect((text.match(/<rect/g) ?? []).length).toBeLessThanOrEqual(24 * 24 + 1);
+  });
+
+  it('shows chosen photos to anyone, keeps other uploads private, refuses photos of another pattern', async () => {
+    const upload = (pid: number) => request(h.app).post(`/api/patterns/${pid}/uploads`).set('Authorization', designer.auth).attach('file', pngBytes(), { filename: 'swatch.png', contentType: 'image/png' });
+    const shown = (await upload(patternId)).body.upload.id as number;
+    const hidden = (await upload(patternId)).body.upload.id as number;
+    const elsewhere = await request(h.app).post('/api/patterns').set('Authorization', designer.auth).send({ title: 'Elsewhere', source: sampleSource() });
+    const foreign = (await upload(elsewhere.body.pattern.id)).body.upload.id as number;
+    const body = { currency: 'EUR', amount: 650, taxInclusive: true, description: `Tidepool Cowl (shop test): a test listing`, active: true };
+    const bad = await request(h.app).put(`/api/patterns/${patternId}/listing`).set('Authorization', designer.auth).send({ ...body, photoIds: [shown, foreign] });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.code).toBe('invalid-photos');
+    const ok = await request(h.app).put(`/api/patterns/${patternId}/listing`).set('Authorization', designer.auth).send({ ...body, photoIds: [shown] });
+    expect(ok.body.listing.photos).toEqual([{ id: shown, url: `/api/shop/listings/${listingId}/photos/${shown}` }]);
+    const photo = await request(h.app).get(`/api/shop/listings/${listingId}/photos/${shown}`);
+    expect(photo.status).toBe(200);
+    expect(photo.headers['content-type']).toBe('image/png');
+    expect((await request(h.app).get(`/api/shop/listings/${listingId}/photos/${hidden}`)).status).toBe(404);
+    expect((await request(h.app).get(`/api/uploads/${shown}`)).status).toBe(401);
   });
 
   it('does not open the pattern itself to shoppers (404 for a knitter who has not bought it)', async () => {
