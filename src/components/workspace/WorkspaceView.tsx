@@ -7,8 +7,6 @@
 import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { Span } from '../../../shared';
 import type { Pattern, Revision } from '../../api/types';
-import { conflictOf, useSaveRevision } from '../../api/usePatterns';
-import { errorText } from '../../api/client';
 import { LoopEditor, type EditorHandle } from '../../editor/LoopEditor';
 import { pushDiagnostics } from '../../editor/lint';
 import { pushTokens } from '../../editor/highlight';
@@ -27,9 +25,9 @@ import { PaneTabs, type PaneTab } from './PaneTabs';
 import { ProblemsPane } from './ProblemsPane';
 import { SaveDialog } from './SaveDialog';
 import { useEditingSession } from './useEditingSession';
+import { useSaveFlow } from './useSaveFlow';
 import { useWorkspaceKeys } from './useWorkspaceKeys';
 import { WorkspaceHeader } from './WorkspaceHeader';
-import { writeSetAside } from './drafts';
 
 type PaneKey = 'counts' | 'problems' | 'chart' | 'instructions' | 'summary';
 
@@ -50,31 +48,22 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     onTokens: (m) => { if (editor.current) pushTokens(editor.current.view, m); },
     onVocabulary: (m) => setVocabulary(m.stitches, m.keywords),
   });
-  const save = useSaveRevision(patternId);
   const editor = useRef<EditorHandle | null>(null);
   const [pane, setPane] = useState<PaneKey>('counts');
   const [cursorLine, setCursorLine] = useState(1);
-  const [savedRevision, setSavedRevision] = useState<Revision | null>(latest);
-  const [saveOpen, setSaveOpen] = useState(false);
   const [helpOpen, setHelpOpen] = useState(false);
-  const [conflict, setConflict] = useState<{ theirs: Revision; message: string } | null>(null);
-  const [setAside, setSetAside] = useState<string | null>(null);
-  const [toast, setToast] = useState<string | null>(null);
   const [showRestored, setShowRestored] = useState(session.restored !== null);
   const [chartSettings, setChartSettings] = useState<ChartSettings>({ size: null, side: 'front', cell: 16 });
   const [instructionsSize, setInstructionsSize] = useState<string | null>(null);
   const canEdit = !pattern.myRole || pattern.myRole === 'owner';
+  const hideRestored = useCallback(() => setShowRestored(false), []);
+  const flow = useSaveFlow({ patternId, latest, session, editor, canEdit, onSaved: hideRestored });
+  const openSave = flow.openDialog;
 
   const view = compiler.view;
   useEffect(() => {
     if (view && editor.current) pushDiagnostics(editor.current.view, view);
   }, [view]);
-
-  useEffect(() => {
-    if (!toast) return;
-    const t = setTimeout(() => setToast(null), 4000);
-    return () => clearTimeout(t);
-  }, [toast]);
 
   const { update, setViews } = compiler;
   // The worker draws the chart only while its pane is showing.
@@ -107,38 +96,6 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
     h.focus();
     return true;
   }, []);
-
-  const openSave = useCallback(() => { if (canEdit) { save.reset(); setSaveOpen(true); } }, [canEdit, save]);
-
-  const doSave = (message: string, baseRevision: number) => {
-    const source = session.docRef.current;
-    save.mutate({ source, baseRevision, message }, {
-      onSuccess: ({ revision }) => {
-        session.markSaved({ number: revision.number, source });
-        setSavedRevision(revision);
-        setSaveOpen(false);
-        setConflict(null);
-        setShowRestored(false);
-        setToast(`Saved as revision #${revision.number}.`);
-      },
-      onError: (err) => {
-        const theirs = conflictOf(err);
-        if (theirs) { setSaveOpen(false); setConflict({ theirs, message }); }
-      },
-    });
-  };
-
-  const takeTheirs = () => {
-    if (!conflict) return;
-    const mine = session.docRef.current;
-    writeSetAside(patternId, { baseRevision: session.baseRevision, source: mine, savedAt: Date.now() });
-    setSetAside(mine);
-    editor.current?.replaceDoc(conflict.theirs.source);
-    session.markSaved({ number: conflict.theirs.number, source: conflict.theirs.source });
-    setSavedRevision(conflict.theirs);
-    setConflict(null);
-    save.reset();
-  };
 
   const tabs: PaneTab<PaneKey>[] = [
     { key: 'counts', label: 'Counts', shortcut: 'Alt+1' },
@@ -183,7 +140,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
       <WorkspaceHeader
         title={view?.header.title ?? pattern.title}
         status={pattern.status}
-        revision={savedRevision}
+        revision={flow.savedRevision}
         baseRevision={session.baseRevision}
         dirty={session.dirty}
         view={view}
@@ -193,7 +150,7 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
         onShowProblems={() => setPane('problems')}
         onHelp={() => setHelpOpen(true)}
       />
-      {(showRestored && session.restored) || setAside !== null || !canEdit ? (
+      {(showRestored && session.restored) || flow.setAside !== null || !canEdit ? (
         <div className="space-y-2 border-b border-tide-200 bg-white px-4 py-2">
           {!canEdit && <Notice tone="info">You can read this pattern; only its designer saves revisions.</Notice>}
           {showRestored && session.restored && (
@@ -205,14 +162,14 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
               </span>
             </Notice>
           )}
-          {setAside !== null && (
+          {flow.setAside !== null && (
             <Notice tone="info">
               <span className="flex items-center gap-3">
                 Your own version is set aside in this browser.
-                <button type="button" className="font-medium underline" onClick={() => { editor.current?.replaceDoc(setAside); setSetAside(null); }}>
+                <button type="button" className="font-medium underline" onClick={flow.bringBack}>
                   Bring my version back
                 </button>
-                <button type="button" className="ml-auto font-medium underline" onClick={() => setSetAside(null)}>Dismiss</button>
+                <button type="button" className="ml-auto font-medium underline" onClick={flow.dismissSetAside}>Dismiss</button>
               </span>
             </Notice>
           )}
@@ -264,32 +221,32 @@ export function WorkspaceView({ patternId, pattern, latest }: WorkspaceViewProps
       </div>
 
       <SaveDialog
-        open={saveOpen}
+        open={flow.dialogOpen}
         baseRevision={session.baseRevision}
-        saving={save.isPending}
-        error={save.isError && !conflictOf(save.error) ? errorText(save.error) : null}
+        saving={flow.saving}
+        error={flow.error}
         errors={view?.diagnostics.filter((d) => d.severity === 'error').length ?? 0}
-        onSave={(message) => doSave(message, session.baseRevision)}
-        onClose={() => setSaveOpen(false)}
+        onSave={(message) => flow.save(message)}
+        onClose={flow.closeDialog}
       />
-      {conflict && (
+      {flow.conflict && (
         <Suspense fallback={<div role="status" className="fixed inset-0 z-50 flex items-center justify-center bg-tide-950/40 text-white">Comparing versions…</div>}>
         <ConflictDialog
           open
           mine={session.docRef.current}
-          theirs={conflict.theirs}
-          saving={save.isPending}
-          error={save.isError && !conflictOf(save.error) ? errorText(save.error) : null}
-          onKeepMine={() => doSave(conflict.message, conflict.theirs.number)}
-          onTakeTheirs={takeTheirs}
-          onClose={() => setConflict(null)}
+          theirs={flow.conflict.theirs}
+          saving={flow.saving}
+          error={flow.error}
+          onKeepMine={() => { if (flow.conflict) flow.save(flow.conflict.message, flow.conflict.theirs.number); }}
+          onTakeTheirs={flow.takeTheirs}
+          onClose={flow.closeConflict}
         />
         </Suspense>
       )}
       <HelpOverlay open={helpOpen} onClose={() => setHelpOpen(false)} panes={tabs.map((t) => t.label)} />
-      {toast && (
+      {flow.toast && (
         <div role="status" className="fixed bottom-10 left-1/2 z-40 -translate-x-1/2 rounded-full bg-tide-900 px-4 py-2 text-sm text-white shadow-float">
-          {toast}
+          {flow.toast}
         </div>
       )}
     </div>
