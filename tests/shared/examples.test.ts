@@ -105,6 +105,15 @@ describe('loop check (notation.md command line contract)', () => {
     expect(json.diagnostics.every((d: { code: string }) => /^LW\d{3}$/.test(d.code))).toBe(true);
   });
 
+  it('`npm run loop -- check FILE --json` prints exactly one JSON object on stdout (no npm banner) and keeps the exit code', () => {
+    const ok = spawnSync('npm', ['run', 'loop', '--', 'check', 'examples/tidepool-cowl.loop', '--json'], { cwd: root, encoding: 'utf8', maxBuffer: 16 * 1024 * 1024 });
+    expect(ok.status).toBe(0);
+    expect(JSON.parse(ok.stdout).ok).toBe(true);
+    const bad = spawnSync('npm', ['run', 'loop', '--', 'check', 'examples/broken/lw301-count-mismatch.loop', '--json'], { cwd: root, encoding: 'utf8' });
+    expect(bad.status).toBe(1);
+    expect(JSON.parse(bad.stdout).diagnostics[0].code).toBe('LW301');
+  });
+
   it('the JSON is toCheckJson of compile for the same file', () => {
     const file = path.join(root, 'examples', 'quarry-tote-panel.loop');
     const res = run(['check', file, '--json']);
