@@ -79,6 +79,7 @@ export function Component() {
       <div className="flex flex-wrap items-center gap-x-5 gap-y-1 border-b border-tide-200 bg-white px-4 py-2 text-sm" role="status" data-testid="diff-summary">
         {single ? <span>Revision #{to} by itself: pick a line or a {word.toLowerCase()} on the chart to comment.</span> : d.same ? <span>The two revisions are the same.</span> : (
           <>
+            {sizes.length > 1 && <span className="text-tide-600">All {sizes.length} sizes together:</span>}
             <span><strong className="tabular">{s.roundsChanged}</strong> {word.toLowerCase()}s changed</span>
             <span><strong className="tabular">{s.roundsAdded}</strong> added · <strong className="tabular">{s.roundsRemoved}</strong> removed</span>
             <span><strong className="tabular">{s.countsChanged}</strong> with new counts</span>

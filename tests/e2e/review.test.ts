@@ -84,6 +84,7 @@ describe('review, release and knitting in Chromium', () => {
 
     // The editor opens the changes of revision 2.
     const editor = await pageAs(EDITOR);
+    await editor.setViewportSize({ width: 1024, height: 768 }); // the narrowest width the studio supports
     await editor.goto(`${h.baseUrl}/patterns/${patternId}/review`);
     await editor.getByRole('link', { name: 'Changes in revision 2 since 1' }).click();
     await editor.waitForURL(/\/review\/diff\?from=1&to=2/);

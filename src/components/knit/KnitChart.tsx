@@ -3,6 +3,7 @@
  * shaded and outlined; clicking a round makes it the current one.
  */
 import { useEffect, useRef } from 'react';
+import { centreWithin } from '../review/mark-cells';
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
 
@@ -22,7 +23,6 @@ function shadeRow(svg: SVGSVGElement, round: number): () => void {
   r.setAttribute('class', 'lw-current-row');
   r.setAttribute('pointer-events', 'none');
   svg.append(r);
-  r.scrollIntoView?.({ block: 'center', inline: 'nearest' });
   return () => r.remove();
 }
 
@@ -31,7 +31,10 @@ export function KnitChart({ svg, current, word, onPick }: { svg: string | null; 
   useEffect(() => {
     const el = box.current?.querySelector('svg');
     if (!el || current === null) return;
-    return shadeRow(el, current);
+    const undo = shadeRow(el, current);
+    const mark = el.querySelector('.lw-current-row');
+    if (box.current && mark) centreWithin(box.current, mark, false);
+    return undo;
   }, [svg, current]);
   if (!svg) return null;
   return (

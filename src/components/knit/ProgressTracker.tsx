@@ -4,7 +4,6 @@
  * a toggle per round (done or not). Every change is saved through the API
  * for this knitter, release and size.
  */
-import { useEffect, useRef } from 'react';
 import type { ApiProgress } from '../../../shared/api-schemas';
 import type { Instructions, RenderedRound } from '../review/render-protocol';
 
@@ -33,8 +32,6 @@ export function ProgressTracker({ instructions, rounds, progress, word, onSave, 
   const current = currentOf(progress, total);
   const entry = instructions.entries.find((e) => current >= e.first && current <= e.last);
   const here = rounds[current - 1];
-  const currentRef = useRef<HTMLButtonElement>(null);
-  useEffect(() => { currentRef.current?.scrollIntoView({ block: 'nearest' }); }, [current]);
   const save = (roundsDone: number[], currentRound: number | null) => onSave({ roundsDone, currentRound });
   const markDone = () => {
     const next = Math.min(total, current + 1);
@@ -80,7 +77,7 @@ export function ProgressTracker({ instructions, rounds, progress, word, onSave, 
                 {e.note && <span className="block text-caption italic text-tide-700">Note: {e.note}</span>}
                 <span className="mt-1 flex flex-wrap gap-1" role="group" aria-label={`${e.label}: ${w}s done`}>
                   {nums.map((n) => (
-                    <button key={n} type="button" ref={n === current ? currentRef : undefined} aria-pressed={done.has(n)}
+                    <button key={n} type="button" aria-pressed={done.has(n)}
                       aria-label={`${word} ${n} done${n === current ? ' (current)' : ''}`} onClick={() => toggle(n)}
                       className={`min-w-8 rounded-stitch border px-1.5 text-caption tabular ${done.has(n) ? 'border-samphire-300 bg-samphire-100 text-samphire-900' : 'border-tide-300 bg-white text-tide-800 hover:bg-tide-50'} ${n === current ? 'ring-2 ring-lavender-600' : ''}`}>
                       {done.has(n) ? '✓' : ''}{n}

@@ -6,7 +6,7 @@
  */
 import { useEffect, useRef, useState, type KeyboardEvent, type MouseEvent } from 'react';
 import type { SizeDiff } from '../../../shared/diff/types';
-import { markCells } from './mark-cells';
+import { centreWithin, markCells } from './mark-cells';
 import { useRendered } from './useRendered';
 
 export interface DiffChartProps {
@@ -31,8 +31,8 @@ export function DiffChart({ source, size, revision, onCommentRound }: DiffChartP
     const { missed: m, undo } = markCells(el, cells, rows);
     setMissed(m);
     const scroller = box.current;
-    if (scroller) { scroller.scrollTop = scroller.scrollHeight; scroller.scrollLeft = scroller.scrollWidth; }
-    el.querySelector('.lw-diff-cell, .lw-diff-row')?.scrollIntoView({ block: 'center', inline: 'center' });
+    const first = el.querySelector('.lw-diff-cell, .lw-diff-row');
+    if (scroller && first) centreWithin(scroller, first);
     return undo;
   }, [svg, size]);
 

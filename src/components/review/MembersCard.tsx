@@ -39,8 +39,8 @@ export function MembersCard({ patternId, isOwner }: { patternId: string; isOwner
             </ul>
           )}
       {isOwner && (
-        <form onSubmit={submit} className="mt-3 grid grid-cols-[1fr_9rem_auto] items-end gap-2">
-          <div>
+        <form onSubmit={submit} className="mt-3 grid grid-cols-[1fr_auto] items-end gap-2">
+          <div className="col-span-2">
             <label htmlFor="inv-email" className="field-label">Invite by e-mail</label>
             <input id="inv-email" type="email" required className="field-input" value={email} onChange={(e) => setEmail(e.target.value)} autoComplete="off" />
           </div>
@@ -51,8 +51,8 @@ export function MembersCard({ patternId, isOwner }: { patternId: string; isOwner
             </select>
           </div>
           <button type="submit" className="btn btn-quiet" disabled={invite.isPending || !email.trim()}>Invite</button>
-          {invite.isError && <Notice tone="error" className="col-span-3">{errorText(invite.error)}</Notice>}
-          {invite.isSuccess && <Notice tone="success" className="col-span-3">{invite.data.delivered ? 'Invitation sent.' : 'Invitation made, but the mail could not be sent.'}</Notice>}
+          {invite.isError && <Notice tone="error" className="col-span-2">{errorText(invite.error)}</Notice>}
+          {invite.isSuccess && <Notice tone="success" className="col-span-2">{invite.data.delivered ? 'Invitation sent.' : 'Invitation made, but the mail could not be sent.'}</Notice>}
         </form>
       )}
     </section>

@@ -48,7 +48,7 @@ function Cell({ line, side, commented, onComment, to }: { line: TextLine | null;
           </button>
         ) : n}
       </td>
-      <td className={`whitespace-pre-wrap break-all px-2 align-top ${tone}`}>
+      <td className={`whitespace-pre-wrap break-words px-2 align-top ${tone}`}>
         <span aria-hidden="true" className="mr-1 select-none text-tide-500">{sign}</span>
         <span className="sr-only">{line.kind === 'removed' ? 'removed: ' : line.kind === 'added' ? 'added: ' : ''}</span>
         {line.text}

@@ -65,3 +65,18 @@ export function markCells(svg: SVGSVGElement, cells: CellMark[], rows: number[])
   svg.append(overlay);
   return { missed, undo: () => overlay.remove() };
 }
+
+/**
+ * Scrolls `box` (a scrolling container) so `target` sits in its middle
+ * (with `horizontally` false: at its height, the right edge in view),
+ * without scrolling the page around it (scrollIntoView would move every
+ * scrolling ancestor, the page included).
+ */
+export function centreWithin(box: HTMLElement, target: Element, horizontally = true): void {
+  const b = box.getBoundingClientRect();
+  const t = target.getBoundingClientRect();
+  box.scrollTop += t.top - b.top - (b.height - t.height) / 2;
+  // Otherwise show the right edge, where rounds start.
+  if (horizontally) box.scrollLeft += t.left - b.left - (b.width - t.width) / 2;
+  else box.scrollLeft = box.scrollWidth;
+}
