@@ -44,7 +44,7 @@ const errorMessageProvider = {
 /** Grammar-only parser. Use {@link parseTokens}; do not construct more. */
 class LoopParser extends CstParser {
   constructor() {
-    super(T.allTokens, { recoveryEnabled: true, errorMessageProvider, maxLookahead: 3 });
+    super(T.allTokens, { recoveryEnabled: true, errorMessageProvider, maxLookahead: 3, nodeLocationTracking: 'full' });
     this.performSelfAnalysis();
   }
 

@@ -51,6 +51,11 @@ function collect(n: CstNode, out: IToken[]): void {
 /** The span of everything under a CST node, or null when recovery left it empty. */
 function nodeSpan(n: CstNode | undefined): Span | null {
   if (!n) return null;
+  // The parser tracks node locations; recovery can leave them unset (NaN), then walk the tokens.
+  const loc = n.location;
+  if (loc && Number.isFinite(loc.startOffset) && Number.isFinite(loc.endOffset) && Number.isFinite(loc.startLine) && Number.isFinite(loc.endLine)) {
+    return { from: loc.startOffset, to: loc.endOffset! + 1, line: loc.startLine!, column: loc.startColumn!, endLine: loc.endLine!, endColumn: loc.endColumn! + 1 };
+  }
   const all: IToken[] = [];
   collect(n, all);
   if (all.length === 0) return null;
