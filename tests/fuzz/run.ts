@@ -21,7 +21,7 @@
  * same case whatever the number of workers.
  *
  * Hangs: the cases run in child processes that report each case number
- * before compiling it; when a case makes no progress for 60 s of wall time
+ * before compiling it; when a case makes no progress for 60 s of CPU time
  * the parent kills the child, records a `hang` at that path and resumes at
  * the next case (fast-check's `path` continues the same stream).
  *
@@ -32,7 +32,7 @@
  * slowest cases to .data/fuzz/cases/. Exit code 1 on any failure.
  */
 import { spawn } from 'node:child_process';
-import { mkdirSync, rmSync, writeFileSync, writeSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync, writeFileSync, writeSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import { createInterface } from 'node:readline';
@@ -54,8 +54,25 @@ export const DEFAULT_RUNS = 100_000;
 export const BUDGET_MS = 100;
 /** Models up to this many stitches (over all sizes) get the flat budget; larger ones a proportional one. */
 export const FLAT_BUDGET_STITCHES = 100_000;
-/** A case that shows no progress for this long (wall clock) is a hang. */
+/** A case that shows no progress for this much CPU time of its process is a hang. */
 const HANG_MS = 60_000;
+
+/**
+ * CPU milliseconds a process has used (Linux /proc; elsewhere null, and the
+ * watchdog falls back to wall time). On a busy machine wall time would call a
+ * slow case a hang.
+ */
+function processCpuMs(pid: number | undefined): number | null {
+  if (pid === undefined) return null;
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    // Fields 14 and 15 of stat (utime, stime), in clock ticks of 10 ms.
+    return (Number(fields[11]) + Number(fields[12])) * 10;
+  } catch {
+    return null;
+  }
+}
 const KEEP_SLOWEST = 8;
 const MAX_LISTED_FAILURES = 50;
 
@@ -168,18 +185,19 @@ async function runRange(args: Args, first: number, last: number, progress: Int32
     const childArgs = [...process.execArgv, import.meta.filename, '--child', '--seed', String(args.seed), '--from', String(from), '--runs', String(last - from), '--budget-ms', String(args.budgetMs)];
     const proc = spawn(process.execPath, childArgs, { stdio: ['ignore', 'inherit', 'inherit', 'pipe'] });
     let current = from - 1;
-    let lastProgress = performance.now();
+    const clock = () => processCpuMs(proc.pid) ?? performance.now();
+    let lastProgress = clock();
     let hung = false;
     let childStats: Stats | null = null;
     const lines = createInterface({ input: proc.stdio[3] as Readable });
     lines.on('line', (line) => {
       if (line.startsWith('STATS ')) { childStats = JSON.parse(line.slice(6)) as Stats; return; }
       current = Number(line);
-      lastProgress = performance.now();
+      lastProgress = clock();
       progress[slot] = current - first + 1;
     });
     const watchdog = setInterval(() => {
-      if (performance.now() - lastProgress > HANG_MS) { hung = true; proc.kill('SIGKILL'); }
+      if (clock() - lastProgress > HANG_MS) { hung = true; proc.kill('SIGKILL'); }
     }, 1000);
     const code = await new Promise<number | null>((resolve) => proc.on('exit', (c) => resolve(c)));
     clearInterval(watchdog);
@@ -189,7 +207,7 @@ async function runRange(args: Args, first: number, last: number, progress: Int32
       const p = String(Math.max(current, from));
       total.failureCount++;
       total.cases++;
-      total.failures.push({ kind: hung ? 'hang' : 'throw', message: hung ? `no progress for ${HANG_MS / 1000} s` : `the fuzz process died (exit ${code})`, path: p, caseKind: 'unknown', file: null });
+      total.failures.push({ kind: hung ? 'hang' : 'throw', message: hung ? `no progress for ${HANG_MS / 1000} s of CPU time` : `the fuzz process died (exit ${code})`, path: p, caseKind: 'unknown', file: null });
       console.log(`FAIL ${hung ? 'hang' : 'crash'} at --seed ${args.seed} --path ${p}`);
       from = Number(p) + 1;
       continue;
