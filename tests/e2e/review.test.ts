@@ -146,7 +146,7 @@ describe('review, release and knitting in Chromium', () => {
     await knitter.getByRole('group', { name: 'Size' }).getByRole('button', { name: 'Size M' }).click();
     const current = knitter.getByTestId('current-round');
     await expect.poll(() => current.textContent(), { timeout: 15_000 }).toContain('Round 1');
-    expect(await knitter.getByTestId('current-counts').textContent()).toContain('96 sts');
+    await expect.poll(() => knitter.getByTestId('current-counts').textContent()).toContain('96 sts');
     await knitter.getByRole('button', { name: /Mark round 1 done/ }).click();
     await expect.poll(() => current.textContent()).toContain('Round 2');
     const knitterToken = await h.apiToken(KNITTER.email, KNITTER.password);
@@ -164,6 +164,14 @@ describe('review, release and knitting in Chromium', () => {
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     await expect.poll(() => knitter.getByTestId('export-done').textContent()).toContain('.pdf');
     await shot(knitter, 'review-07-exported');
+
+    // An erratum on the current round reaches the designer as a comment on the released revision.
+    await current.getByRole('button', { name: 'Report a problem' }).click();
+    await knitter.getByLabel('What is wrong?').fill('Round 2 says k1, p1 but my swatch shows 96 sts; fine, just checking the rib.');
+    await knitter.getByRole('button', { name: 'Send report' }).click();
+    await expect.poll(() => knitter.getByText('the designer has your report on round 2').count()).toBe(1);
+    const comments = await h.api<{ comments: { kind: string; round: number; size: string | null }[] }>(designerToken, 'GET', `/api/patterns/${patternId}/revisions/2/comments`);
+    expect(comments.body.comments).toContainEqual(expect.objectContaining({ kind: 'erratum', round: 2, size: 'M' }));
     await knitter.close();
   }, 240_000);
 });

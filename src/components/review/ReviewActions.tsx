@@ -25,6 +25,8 @@ export function ReviewActions({ patternId, role, review, revisions, releases }: 
   const [done, setDone] = useState<string | null>(null);
   const latest = revisions[0]?.number ?? 1;
   const { status } = review;
+  // The revision the designer sent for review (the newest when the log does not say).
+  const asked = [...review.events].reverse().find((e) => e.event === 'submit')?.revision ?? latest;
   const run = (s: Parameters<typeof step.mutate>[0], said: string) => {
     setDone(null);
     step.mutate(s, { onSuccess: (a) => setDone(a.delivered ? said : `${said} The mail could not be sent; tell them yourself.`) });
@@ -53,12 +55,14 @@ export function ReviewActions({ patternId, role, review, revisions, releases }: 
           onSubmit={(label, notes) => run({ step: 'release', label, notes: notes || undefined, revision: review.approvedRevision ?? undefined }, `Released as version ${label}.`)} />
       )}
       {role === 'editor' && status === 'in-review' && (
-        <VerdictForm key={`ver-${latest}`} latest={latest} busy={step.isPending}
-          onApprove={(message) => run({ step: 'approve', revision: latest, message: message || undefined }, `Revision #${latest} approved.`)}
-          onChanges={(message) => run({ step: 'request-changes', revision: latest, message }, 'Changes requested.')} />
+        <VerdictForm key={`ver-${asked}`} latest={asked} busy={step.isPending}
+          onApprove={(message) => run({ step: 'approve', revision: asked, message: message || undefined }, `Revision #${asked} approved.`)}
+          onChanges={(message) => run({ step: 'request-changes', revision: asked, message }, 'Changes requested.')} />
       )}
       {role === 'editor' && status !== 'in-review' && (
-        <p className="mt-2 text-caption text-tide-600">You can approve or ask for changes once the designer asks you for a review.</p>
+        <p className="mt-2 text-caption text-tide-600">
+          {status === 'approved' ? 'Waiting for the designer to release the approved revision.' : 'You can approve or ask for changes once the designer asks you for a review.'}
+        </p>
       )}
     </section>
   );
