@@ -93,13 +93,13 @@ export function Component() {
       <div className="grid grid-cols-2 gap-0">
         <section aria-labelledby="src-h" className="min-w-0 border-r border-tide-200 bg-white">
           <h2 id="src-h" className="border-b border-tide-200 px-4 py-2 text-sm font-semibold">Source {single ? `of #${to}` : `#${from} → #${to}`}</h2>
-          {text ? <TextDiffView text={text} from={from} to={to} commented={commentedLines} onCommentLine={(n) => setAnchor({ fromLine: n, toLine: n })} />
+          {text ? <TextDiffView text={text} from={from} to={to} commented={commentedLines} onCommentLine={(n) => setAnchor({ fromLine: n, toLine: n })} single={single} />
             : <p role="status" className="p-4 text-sm text-tide-600">Loading the source…</p>}
           {!single && <DiffFacts diff={d} />}
         </section>
         <section aria-labelledby="rounds-h" className="min-w-0 bg-white">
           <div className="flex flex-wrap items-center gap-3 border-b border-tide-200 px-4 py-2">
-            <h2 id="rounds-h" className="text-sm font-semibold">Changed {word.toLowerCase()}s</h2>
+            <h2 id="rounds-h" className="text-sm font-semibold">{single ? `Comments and chart of #${to}` : `Changed ${word.toLowerCase()}s`}</h2>
             {sizes.length > 1 && (
               <div role="group" aria-label="Size" className="flex overflow-hidden rounded-stitch border border-tide-300 text-caption">
                 {sizes.map((x) => (
@@ -118,7 +118,7 @@ export function Component() {
                 <CommentThreads patternId={id} revision={to} word={word} anchor={anchor} onClearAnchor={() => setAnchor(null)} />
               </div>
               <div className="border-t border-tide-200">
-                <DiffChart source={newer.data?.source ?? null} size={size} revision={to} onCommentRound={(r) => setAnchor({ round: r })} />
+                <DiffChart source={newer.data?.source ?? null} size={size} revision={to} single={single} onCommentRound={(r) => setAnchor({ round: r })} />
               </div>
             </>
           )}

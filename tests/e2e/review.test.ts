@@ -115,6 +115,16 @@ describe('review, release and knitting in Chromium', () => {
     expect(await thread.textContent()).toContain('Round 6');
     await shot(editor, 'review-02-editor-diff');
 
+    // A line of the new source takes a comment too (line 13 is the added round 11).
+    await editor.getByRole('button', { name: 'Comment on line 13 of revision 2' }).click();
+    await editor.getByLabel('Comment on line 13 of revision #2').fill('Say in words that this round decreases to 84/96/108.');
+    await editor.getByRole('button', { name: 'Add comment' }).click();
+    await expect.poll(() => editor.getByTestId('thread').filter({ hasText: 'decreases to' }).textContent()).toContain('Line 13');
+    // Revision 1 on its own: its source lines, no changes.
+    await editor.goto(`${h.baseUrl}/patterns/${patternId}/review/diff?from=1&to=1`);
+    await expect.poll(() => editor.getByTestId('text-diff').textContent()).toContain('round 6: k to end');
+    await shot(editor, 'review-02c-revision-1');
+
     await editor.getByRole('link', { name: 'All revisions' }).click();
     await editor.getByRole('button', { name: 'Approve revision #2' }).click();
     await expect.poll(() => editor.getByTestId('review-status').textContent()).toMatch(/Approved: revision #2/);

@@ -30,20 +30,30 @@ export function threadsOf(comments: ApiComment[]): { root: ApiComment; replies: 
 function Composer({ patternId, revision, anchor, word, onDone }: { patternId: string; revision: number; anchor: Omit<NewComment, 'body'>; word: 'Round' | 'Row'; onDone: () => void }) {
   const add = useAddComment(patternId, revision);
   const [body, setBody] = useState('');
+  const [round, setRound] = useState('');
   const ref = useRef<HTMLTextAreaElement>(null);
   useEffect(() => { ref.current?.focus(); }, [anchor]);
+  const isGeneral = anchor.round === undefined && anchor.fromLine === undefined;
   const where = anchorLabel({ round: anchor.round ?? null, fromLine: anchor.fromLine ?? null, toLine: anchor.toLine ?? null }, word);
   const submit = (e: FormEvent) => {
     e.preventDefault();
     if (!body.trim()) return;
-    add.mutate({ ...anchor, body: body.trim() }, { onSuccess: () => { setBody(''); onDone(); } });
+    const picked = Number(round);
+    const at = isGeneral && Number.isInteger(picked) && picked > 0 ? { round: picked } : anchor;
+    add.mutate({ ...at, body: body.trim() }, { onSuccess: () => { setBody(''); onDone(); } });
   };
   return (
     <form onSubmit={submit} className="rounded-stitch border border-lavender-200 bg-lavender-50 p-3" data-testid="comment-composer">
       <label htmlFor="new-comment" className="field-label">{where ? `Comment on ${where.toLowerCase()} of revision #${revision}` : `Comment on revision #${revision}`}</label>
       <textarea id="new-comment" ref={ref} className="field-input" rows={3} value={body} maxLength={5000} onChange={(e) => setBody(e.target.value)} />
       {add.isError && <Notice tone="error" className="mt-2">{errorText(add.error)}</Notice>}
-      <div className="mt-2 flex gap-2">
+      <div className="mt-2 flex items-center gap-2">
+        {isGeneral && (
+          <label className="flex items-center gap-1.5 text-caption text-tide-700">
+            {word} (optional)
+            <input type="number" min={1} className="field-input w-20 py-1" value={round} onChange={(e) => setRound(e.target.value)} />
+          </label>
+        )}
         <button type="submit" className="btn btn-primary btn-sm" disabled={add.isPending || !body.trim()}>Add comment</button>
         <button type="button" className="btn btn-quiet btn-sm" onClick={onDone}>Cancel</button>
       </div>

@@ -14,9 +14,11 @@ export interface DiffChartProps {
   size: SizeDiff;
   revision: number;
   onCommentRound: (round: number) => void;
+  /** One revision by itself: nothing is marked. */
+  single?: boolean;
 }
 
-export function DiffChart({ source, size, revision, onCommentRound }: DiffChartProps) {
+export function DiffChart({ source, size, revision, onCommentRound, single = false }: DiffChartProps) {
   const { answer, pending } = useRendered(source, size.size, { cell: 14 });
   const box = useRef<HTMLDivElement>(null);
   const [missed, setMissed] = useState(0);
@@ -42,7 +44,7 @@ export function DiffChart({ source, size, revision, onCommentRound }: DiffChartP
   return (
     <div>
       <p className="px-4 py-2 text-caption text-tide-700">
-        Revision #{revision}, size {size.size}: changed cells outlined in red, changed {size.word}s flagged at both ends. Click a {size.word} to comment on it.
+        Revision #{revision}, size {size.size}{single ? '.' : `: changed cells outlined in red, changed ${size.word}s flagged at both ends.`} Click a {size.word} to comment on it.
         {size.cellsTotal > size.cells.length && ` Showing ${size.cells.length} of ${size.cellsTotal} changed cells.`}
         {missed > 0 && ` ${missed} changed cell${missed === 1 ? '' : 's'} could not be placed on the chart.`}
       </p>

@@ -31,6 +31,8 @@ export interface TextDiffViewProps {
   /** New-revision lines that carry a comment thread. */
   commented: Set<number>;
   onCommentLine: (line: number) => void;
+  /** Show one revision's lines only (no old side). */
+  single?: boolean;
 }
 
 function Cell({ line, side, commented, onComment, to }: { line: TextLine | null; side: 'old' | 'new'; commented: boolean; onComment?: (n: number) => void; to: number }) {
@@ -57,22 +59,22 @@ function Cell({ line, side, commented, onComment, to }: { line: TextLine | null;
   );
 }
 
-export function TextDiffView({ text, from, to, commented, onCommentLine }: TextDiffViewProps) {
+export function TextDiffView({ text, from, to, commented, onCommentLine, single = false }: TextDiffViewProps) {
   if (text.hunks.length === 0) return <p className="p-4 text-sm text-tide-600">The source text is the same in both revisions.</p>;
   return (
     <div className="overflow-x-auto" data-testid="text-diff">
       {text.replacedWhole && <p className="px-3 py-2 text-caption text-mudflat-800">The sources differ too much to line up; the whole text is shown as replaced.</p>}
       <table className="w-full table-fixed border-collapse font-mono text-[0.78rem] leading-5">
-        <colgroup><col className="w-10" /><col /><col className="w-10" /><col /></colgroup>
-        <thead className="sr-only"><tr><th>Line in #{from}</th><th>Revision #{from}</th><th>Line in #{to}</th><th>Revision #{to}</th></tr></thead>
+        <colgroup>{!single && <><col className="w-10" /><col /></>}<col className="w-10" /><col /></colgroup>
+        <thead className="sr-only"><tr>{!single && <><th>Line in #{from}</th><th>Revision #{from}</th></>}<th>Line in #{to}</th><th>Revision #{to}</th></tr></thead>
         {text.hunks.map((h) => (
           <tbody key={`${h.oldStart}-${h.newStart}`}>
-            <tr><td colSpan={4} className="border-y border-tide-200 bg-lavender-50 px-2 py-0.5 font-sans text-caption text-lavender-900">
+            {!single && <tr><td colSpan={4} className="border-y border-tide-200 bg-lavender-50 px-2 py-0.5 font-sans text-caption text-lavender-900">
               Lines {h.oldStart}–{h.oldStart + Math.max(0, h.oldLines - 1)} of #{from} · lines {h.newStart}–{h.newStart + Math.max(0, h.newLines - 1)} of #{to}
-            </td></tr>
+            </td></tr>}
             {pairRows(h).map((r, i) => (
               <tr key={i}>
-                <Cell line={r.left} side="old" commented={false} to={to} />
+                {!single && <Cell line={r.left} side="old" commented={false} to={to} />}
                 <Cell line={r.right} side="new" commented={r.right?.new != null && commented.has(r.right.new)} onComment={onCommentLine} to={to} />
               </tr>
             ))}
