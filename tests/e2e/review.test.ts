@@ -165,8 +165,13 @@ describe('review, release and knitting in Chromium', () => {
     expect(await knitter.locator('[data-testid="knit-chart"] .lw-current-row').count()).toBe(1);
     await shot(knitter, 'review-06-knitter');
 
+    // Slow down the job's progress answers (as a long export on a busy server
+    // would be) so the progress bar can be seen.
+    await knitter.route(/\/api\/exports\/[^/]+$/, async (route) => { await new Promise((r) => setTimeout(r, 700)); await route.continue(); });
     const download = knitter.waitForEvent('download', { timeout: 60_000 });
     await knitter.getByRole('button', { name: /Export the whole pattern as PDF, size M/ }).click();
+    await knitter.getByRole('progressbar', { name: 'PDF export' }).waitFor();
+    await shot(knitter, 'review-06b-exporting');
     const file = await download;
     expect(file.suggestedFilename()).toMatch(/\.pdf$/);
     const bytes = readFileSync(await file.path());
