@@ -24,7 +24,8 @@ h1{font-size:1.1rem;margin:0 0 .25rem}
 .total{font-size:1.6rem;font-weight:600;margin:1.25rem 0}
 label{display:block;font-size:.85rem;font-weight:600;margin:1rem 0 .3rem}
 input{width:100%;box-sizing:border-box;font:inherit;padding:.55rem .6rem;border:1px solid #b9b2a3;border-radius:6px}
-.row{display:flex;gap:.6rem;margin-top:1.4rem}
+/* Pay comes first in the form so Enter pays; Cancel is drawn on the left. */
+.row{display:flex;flex-direction:row-reverse;gap:.6rem;margin-top:1.4rem}
 button{font:inherit;font-weight:600;padding:.6rem 1rem;border-radius:6px;border:1px solid #3d4f5a;cursor:pointer}
 .pay{background:#3d4f5a;color:#fff;flex:1}.cancel{background:#fff;color:#3d4f5a}
 .error{background:#fbe9e7;border:1px solid #e0a89e;color:#8a2b1d;padding:.6rem .75rem;border-radius:6px;margin-top:1rem}
@@ -45,8 +46,8 @@ export function hostedPageHtml(session: FakeCheckoutSession, error: string | nul
   <p class="muted">Local test payments: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined.</p>
   ${error ? `<p class="error" role="alert">${escapeHtml(error)}</p>` : ''}
   <div class="row">
-    <button class="cancel" type="submit" name="action" value="cancel">Cancel</button>
     <button class="pay" type="submit" name="action" value="pay">Pay ${escapeHtml(amountText(session.amount_total, session.currency))}</button>
+    <button class="cancel" type="submit" name="action" value="cancel" formnovalidate>Cancel</button>
   </div>
 </form>`;
   return `<!doctype html>
