@@ -66,6 +66,9 @@ export function Component() {
                       <Link to={`/patterns/${id}/knit?release=${encodeURIComponent(r.label)}`} className="font-semibold text-lavender-800 hover:underline">Version {r.label}</Link>
                       <span className="text-tide-600"> · revision #{r.revision} · <span title={fullTime(r.releasedAt)}>{relativeTime(r.releasedAt)}</span></span>
                       {r.notes && <span className="block text-caption text-tide-700">{r.notes}</span>}
+                      <Link to={`/patterns/${id}/review/diff?from=${Math.max(1, r.revision - 1)}&to=${r.revision}`} className="block text-caption text-lavender-800 hover:underline">
+                        Comments and errata on revision #{r.revision}
+                      </Link>
                     </li>
                   ))}
                 </ul>
