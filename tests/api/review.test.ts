@@ -9,7 +9,7 @@
  */
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Release } from '../../server/models/index.ts';
+import { Membership, Release } from '../../server/models/index.ts';
 import { startHarness, type ApiHarness } from './helpers.ts';
 import { as, makeReviewCast, saveRevision, type ReviewCast, type Who } from './review-fixture.ts';
 import { sampleSource } from './sample-source.ts';
@@ -165,6 +165,29 @@ describe('review steps, roles and mails', () => {
     expect(released.status).toBe(200);
     expect(released.body.release).toMatchObject({ label: '1.2', revision: third });
     expect((await step('editor', '/status', { status: 'released' })).status).toBe(403);
+  });
+});
+
+describe('races and mail texts', () => {
+  it('two releases at once: the pattern row lock lets exactly one through', async () => {
+    const n = await saveRevision(h.app, cast, sampleSource('race'), 'race');
+    await step('owner', '/review/request');
+    await step('editor', '/review/approve', { revision: n });
+    const [a, b] = await Promise.all([step('owner', '/releases', { label: '2.0' }), step('owner', '/releases', { label: '2.1' })]);
+    expect([a.status, b.status].sort()).toEqual([201, 400]);
+    expect(await Release.count({ where: { patternId: cast.patternId, revisionNumber: n } })).toBe(1);
+  });
+
+  it('escapes the pattern title and messages in the HTML of review mails', async () => {
+    const created = await as(h.app, cast.people.owner, 'post', '/api/patterns').send({ title: 'Cowl <b>bold</b> & "quotes"', source: sampleSource() });
+    const id = created.body.pattern.id as number;
+    await Membership.create({ patternId: id, userId: cast.people.editor.id, role: 'editor' });
+    await as(h.app, cast.people.owner, 'post', `/api/patterns/${id}/review/request`).send({ message: '<script>alert(1)</script>' });
+    const mail = h.smtp.list().find((m) => m.to.includes(cast.people.editor.email) && m.subject.includes('<b>bold</b>'));
+    expect(mail).toBeDefined();
+    expect(mail!.html).not.toContain('<b>bold</b>');
+    expect(mail!.html).toContain('&lt;b&gt;bold&lt;/b&gt; &amp; &quot;quotes&quot;');
+    expect(mail!.html).not.toContain('<script>');
   });
 });
 
