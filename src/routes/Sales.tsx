@@ -25,6 +25,9 @@ function OrderStatus({ status }: { status: string }) {
   return <span className={`inline-flex rounded-full border px-2 py-0.5 text-caption font-medium ${orderTones[status] ?? 'bg-tide-100 text-tide-700 border-tide-200'}`}>{statusLabel(status)}</span>;
 }
 
+/** Orders that were paid at some point; the others (abandoned, cancelled, failed checkouts) are hidden unless asked for. */
+const PAID_ONCE: readonly string[] = ['paid', 'refund-pending', 'refunded'];
+
 const monthName = (month: string) => new Date(`${month}-01T00:00:00Z`).toLocaleDateString(undefined, { month: 'long', year: 'numeric', timeZone: 'UTC' });
 
 export function Component() {
@@ -32,6 +35,10 @@ export function Component() {
   const patterns = usePatternList();
   const refund = useRefund();
   const [confirming, setConfirming] = useState<ApiOrder | null>(null);
+  const [showUnfinished, setShowUnfinished] = useState(false);
+  const all = sales.data?.orders ?? [];
+  const unfinished = all.filter((o) => !PAID_ONCE.includes(o.status)).length;
+  const orders = showUnfinished ? all : all.filter((o) => PAID_ONCE.includes(o.status));
   const released = (patterns.data ?? []).filter((p) => p.myRole === 'owner' && p.status === 'released');
 
   return (
@@ -86,7 +93,13 @@ export function Component() {
             </section>
 
             <section className="mt-8" aria-labelledby="orders-heading">
-              <h2 id="orders-heading" className="text-base font-semibold text-tide-900">Orders</h2>
+              <div className="flex items-end justify-between gap-4">
+                <h2 id="orders-heading" className="text-base font-semibold text-tide-900">Orders</h2>
+                <label className="flex items-center gap-2 text-sm text-tide-700">
+                  <input type="checkbox" checked={showUnfinished} onChange={(e) => setShowUnfinished(e.target.checked)} />
+                  Show unfinished checkouts ({unfinished})
+                </label>
+              </div>
               {refund.isError && <Notice tone="error" className="mt-2">{errorText(refund.error)}</Notice>}
               <div className="card mt-2 overflow-x-auto">
                 <table className="w-full text-sm">
@@ -94,9 +107,9 @@ export function Component() {
                     <tr><th className="px-4 py-2">Date</th><th className="px-4 py-2">Pattern</th><th className="px-4 py-2">Buyer</th><th className="px-4 py-2">Version</th><th className="px-4 py-2 text-right">Amount</th><th className="px-4 py-2">Status</th><th className="px-4 py-2"><span className="sr-only">Actions</span></th></tr>
                   </thead>
                   <tbody>
-                    {sales.data.orders.length === 0 ? (
+                    {orders.length === 0 ? (
                       <tr><td colSpan={7} className="px-4 py-6 text-center text-tide-600">No orders yet.</td></tr>
-                    ) : sales.data.orders.map((o) => (
+                    ) : orders.map((o) => (
                       <tr key={o.id} className="border-b border-tide-100 last:border-0">
                         <td className="px-4 py-2 whitespace-nowrap" title={fullTime(o.paidAt ?? o.createdAt)}>{new Date(o.paidAt ?? o.createdAt).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' })}</td>
                         <td className="px-4 py-2 font-medium text-tide-900">{o.title}</td>
