@@ -1,0 +1,104 @@
+/**
+ * The incremental compiler (shared/incremental.ts) must give exactly what a
+ * fresh `compile` gives, whatever it reuses: fast-check over sequences of
+ * edits to the demo patterns (typing a stitch, a note, a comment, a line
+ * break, deleting a stretch, duplicating or swapping lines, garbage), each
+ * result compared as JSON with a fresh compile of the same text (contracts.md:
+ * `compile` is deterministic; the incremental one must be indistinguishable).
+ * No timing here: speed is the bench's business (rules.md).
+ */
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { compile } from '../../shared/index.ts';
+import { createIncrementalCompiler } from '../../shared/incremental.ts';
+
+const root = path.resolve(import.meta.dirname, '..', '..');
+const demos = ['lantern-mitts', 'tidepool-cowl', 'quarry-tote-panel'].map((n) => readFileSync(path.join(root, 'examples', `${n}.loop`), 'utf8'));
+
+/** What a designer might type or delete. */
+type Edit =
+  | { kind: 'insert'; at: number; text: string }
+  | { kind: 'delete'; at: number; length: number }
+  | { kind: 'duplicate-line' | 'drop-line'; line: number }
+  | { kind: 'swap-lines'; a: number; b: number };
+
+const snippets = [
+  'k', ' k 2, ', 'p2', ', k2tog', ' ssk', 'm1l in B, ', '\n', '\n\n', '# a comment\n', ' # side note', ' note "try it on"', 'x', '7', '/',
+  'round 60: k to end\n', 'rounds 3-4 at back: p to end\n', ':', '(', ')', '"', '@@', ' to end', ' in A', 'chart ', 'ladder B every 4 from round 2 to 6\n',
+];
+
+const edit: fc.Arbitrary<Edit> = fc.oneof(
+  fc.record({ kind: fc.constant('insert' as const), at: fc.nat(), text: fc.constantFrom(...snippets) }),
+  fc.record({ kind: fc.constant('delete' as const), at: fc.nat(), length: fc.integer({ min: 1, max: 12 }) }),
+  fc.record({ kind: fc.constantFrom('duplicate-line' as const, 'drop-line' as const), line: fc.nat() }),
+  fc.record({ kind: fc.constant('swap-lines' as const), a: fc.nat(), b: fc.nat() }),
+);
+
+function apply(source: string, e: Edit): string {
+  if (e.kind === 'insert') { const at = e.at % (source.length + 1); return source.slice(0, at) + e.text + source.slice(at); }
+  if (e.kind === 'delete') { const at = e.at % (source.length + 1); return source.slice(0, at) + source.slice(at + e.length); }
+  const lines = source.split('\n');
+  if (e.kind === 'swap-lines') {
+    const a = e.a % lines.length, b = e.b % lines.length;
+    [lines[a], lines[b]] = [lines[b], lines[a]];
+  } else {
+    const i = e.line % lines.length;
+    if (e.kind === 'duplicate-line') lines.splice(i, 0, lines[i]); else lines.splice(i, 1);
+  }
+  return lines.join('\n');
+}
+
+const json = (v: unknown) => JSON.stringify(v);
+
+describe('incremental compiler', () => {
+  it('gives the same JSON as a fresh compile after every edit of a demo pattern (fast-check, 80 edit sequences)', () => {
+    fc.assert(
+      fc.property(fc.nat({ max: demos.length - 1 }), fc.array(edit, { minLength: 1, maxLength: 4 }), fc.option(fc.constantFrom('S', 'M', 'L', 'one'), { nil: undefined }), (d, edits, size) => {
+        const inc = createIncrementalCompiler();
+        let source = demos[d];
+        expect(json(inc.compile(source, { size }))).toBe(json(compile(source, { size })));
+        for (const e of edits) {
+          source = apply(source, e);
+          expect(json(inc.compile(source, { size }))).toBe(json(compile(source, { size })));
+        }
+      }),
+      { numRuns: 80 },
+    );
+  }, 600_000);
+
+  it('reuses every statement and the whole check when only a comment changes in place, and the result is still the fresh one', () => {
+    const inc = createIncrementalCompiler();
+    const source = demos[0];
+    inc.compile(source);
+    const edited = source.replace('# Split the round', '# SPLIT the round');
+    expect(edited).not.toBe(source);
+    const result = inc.compile(edited);
+    expect(inc.lastStats.reusedCheck).toBe(true);
+    expect(inc.lastStats.reusedPieces).toBe(inc.lastStats.pieces);
+    expect(json(result)).toBe(json(compile(edited)));
+  });
+
+  it('re-parses only the edited statement after a one-round edit that moves later text, and works the sizes again', () => {
+    const inc = createIncrementalCompiler();
+    const source = demos[0];
+    inc.compile(source);
+    const edited = source.replace('rounds 51-56: (k2, p2) to end in A', 'rounds 51-56: (k2, p2) to end in A note "cuff"');
+    expect(edited).not.toBe(source);
+    const result = inc.compile(edited);
+    expect(inc.lastStats.pieces - inc.lastStats.reusedPieces).toBe(1);
+    expect(inc.lastStats.reusedCheck).toBe(false);
+    expect(json(result)).toBe(json(compile(edited)));
+  });
+
+  it('moves reused statements after an edit that adds lines above them (spans and line numbers as a fresh compile)', () => {
+    const inc = createIncrementalCompiler();
+    const source = demos[1];
+    inc.compile(source);
+    const edited = source.replace('\n', '\n# one\n# two\n');
+    const result = inc.compile(edited);
+    expect(inc.lastStats.reusedPieces).toBe(inc.lastStats.pieces);
+    expect(json(result)).toBe(json(compile(edited)));
+  });
+});
