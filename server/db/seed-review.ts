@@ -1,22 +1,25 @@
 /**
  * Demo review state for local runs (`npm start`), after seedDemo: the
- * technical editor (Idris Penhale) is invited as editor and both test
- * knitters (Sorrel Quayle, Bram Ottery) as test knitters on every demo
- * pattern, and the Lantern Mitts are reviewed, approved and released as
+ * technical editor (Idris Penhale) is invited as editor on every demo
+ * pattern, the test knitter Bram Ottery on every demo pattern, and the
+ * knitter Sorrel Quayle as a test knitter on every demo pattern except the
+ * released Lantern Mitts, which she can buy in the shop (the demo of a
+ * purchase). The Lantern Mitts are reviewed, approved and released as
  * version 1.0, with the steps in the review log. Idempotent: existing
  * memberships and releases are left alone. Local demo data only.
  */
 import type { Sequelize } from 'sequelize';
 import { Membership, Pattern, Release, Revision, ReviewEvent, User } from '../models/index.ts';
 
-const MEMBERS = [
-  { email: 'editor@saltmarsh.example', role: 'editor' },
-  { email: 'knitter@saltmarsh.example', role: 'test-knitter' },
-  { email: 'knitter2@saltmarsh.example', role: 'test-knitter' },
-] as const;
-
 /** The demo pattern released as 1.0. */
 export const DEMO_RELEASED_TITLE = 'Lantern Mitts';
+
+/** Demo memberships; `except` names a pattern the person is deliberately not a member of. */
+const MEMBERS: readonly { email: string; role: 'editor' | 'test-knitter'; except?: string }[] = [
+  { email: 'editor@saltmarsh.example', role: 'editor' },
+  { email: 'knitter@saltmarsh.example', role: 'test-knitter', except: DEMO_RELEASED_TITLE },
+  { email: 'knitter2@saltmarsh.example', role: 'test-knitter' },
+];
 
 /** Adds the demo memberships and release; returns how many memberships and releases it added. */
 export async function seedReviewDemo(sequelize: Sequelize): Promise<{ memberships: number; releases: number }> {
@@ -29,6 +32,7 @@ export async function seedReviewDemo(sequelize: Sequelize): Promise<{ membership
     const user = await User.findOne({ where: { email: m.email } });
     if (!user) continue;
     for (const p of patterns) {
+      if (p.title === m.except) continue;
       const [, created] = await Membership.findOrCreate({ where: { patternId: p.id, userId: user.id }, defaults: { patternId: p.id, userId: user.id, role: m.role } });
       if (created) memberships++;
     }
