@@ -1,0 +1,70 @@
+/**
+ * The figures of `npm run bench` beside the compile ones (tests/bench/run.ts):
+ * the edit figure (edit.ts), the bundle sizes (bundles.ts) and the HTTP load
+ * figure (api.ts), and the printed table of all five against their goals
+ * (the benchmark issue). A part that cannot run is reported with its error
+ * and a null figure; the others still run.
+ */
+import { measureApi, type ApiFigure } from './api.ts';
+import { measureBundleFigures } from './bundles.ts';
+import { measureEdit, type EditFigure } from './edit.ts';
+
+/** One headline figure: value (null when it could not be measured), goal (value <= goal), unit. */
+export interface Figure { name: string; value: number | null; goal: number; unit: string; error?: string }
+
+/** The figures besides the compile ones, plus their details for latest.json. */
+export interface OtherFigures {
+  figures: Figure[];
+  details: { edit?: EditFigure[]; bundles?: unknown; api?: ApiFigure; errors: Record<string, string> };
+}
+
+const message = (err: unknown) => (err instanceof Error ? err.message : String(err));
+const round = (n: number, digits = 3) => Number(n.toFixed(digits));
+
+/** Measures the edit, bundle and API figures, one after the other. */
+export async function measureOtherFigures(): Promise<OtherFigures> {
+  const figures: Figure[] = [];
+  const details: OtherFigures['details'] = { errors: {} };
+
+  try {
+    // The headline edit changes a round's stitches; a note and a comment edit are shown beside it.
+    const edits = (['instructions', 'note', 'comment'] as const).map((k) => measureEdit(k));
+    details.edit = edits.map((e) => ({ ...e, fullMs: round(e.fullMs, 2), editMs: round(e.editMs, 2), ratio: round(e.ratio) }));
+    figures.push({ name: 'editVsFull', value: round(edits[0].ratio), goal: 0.1, unit: 'x' });
+  } catch (err) {
+    details.errors.editVsFull = message(err);
+    figures.push({ name: 'editVsFull', value: null, goal: 0.1, unit: 'x', error: message(err) });
+  }
+
+  try {
+    const { sizes, built } = measureBundleFigures();
+    details.bundles = { ...sizes, builtNow: built };
+    figures.push({ name: 'firstLoadKB', value: round(sizes.firstLoadGzip / 1024, 1), goal: 150, unit: 'KB' });
+    figures.push({ name: 'workspaceKB', value: round(sizes.workspaceGzip / 1024, 1), goal: 300, unit: 'KB' });
+  } catch (err) {
+    details.errors.bundles = message(err);
+    figures.push({ name: 'firstLoadKB', value: null, goal: 150, unit: 'KB', error: message(err) });
+    figures.push({ name: 'workspaceKB', value: null, goal: 300, unit: 'KB', error: message(err) });
+  }
+
+  try {
+    const api = await measureApi();
+    details.api = { ...api, p99Ratio: round(api.p99Ratio) };
+    figures.push({ name: 'apiP99VsHealth', value: round(api.p99Ratio), goal: 3, unit: 'x' });
+  } catch (err) {
+    details.errors.apiP99VsHealth = message(err);
+    figures.push({ name: 'apiP99VsHealth', value: null, goal: 3, unit: 'x', error: message(err) });
+  }
+  return { figures, details };
+}
+
+/** The printed table: figure, value, goal, met/missed. */
+export function formatFigureTable(figures: Figure[]): string {
+  const rows = [['figure', 'value', 'goal', 'status'], ...figures.map((f) => [
+    f.name, f.value === null ? 'not measured' : `${f.value} ${f.unit}`, `<= ${f.goal} ${f.unit}`,
+    f.value === null ? `error: ${f.error ?? ''}` : f.value <= f.goal ? 'met' : 'missed',
+  ])];
+  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
+  const line = (r: string[]) => r.map((cell, c) => cell.padEnd(widths[c])).join('  ');
+  return [line(rows[0]), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.slice(1).map(line)].join('\n');
+}
