@@ -1,0 +1,67 @@
+/**
+ * Two thousand of the `npm run fuzz` cases (tests/fuzz/): grammar-generated
+ * sources and mutated demo patterns, broken fixtures and generated sources.
+ * The compiler must never throw, keep every span inside the source with
+ * matching line/column, and give the same JSON twice (house-style.md,
+ * "Property tests"; contracts.md, `compile`). Speed is the fuzz run's and
+ * the bench's business, never a timed test (rules.md).
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { compile } from '../../shared/index.ts';
+import { applyMutation, type Mutation } from '../fuzz/mutate.ts';
+import { assertSource, checkSource, fuzzCase, loadCorpus, spanProblem } from '../fuzz/properties.ts';
+
+const corpus = loadCorpus();
+
+describe('fuzz cases (the same arbitrary as npm run fuzz)', () => {
+  it('2,000 cases: no throw, spans in bounds, deterministic', () => {
+    fc.assert(fc.property(fuzzCase(corpus), (c) => assertSource(c.source)), { numRuns: 2000 });
+  }, 600_000);
+});
+
+describe('the fuzz harness itself', () => {
+  it('reads the demo patterns and the broken fixtures as seeds', () => {
+    expect(corpus.demo.map((c) => c.file)).toContain('examples/tidepool-cowl.loop');
+    expect(corpus.broken.length).toBeGreaterThanOrEqual(30);
+  });
+
+  it('generated sources mostly compile without errors, so the checker is exercised and not only the parser', () => {
+    const cases = fc.sample(fuzzCase(corpus).filter((c) => c.kind === 'generated'), { numRuns: 300, seed: 7 });
+    const reachedChecker = cases.filter((c) => compile(c.source).sizes.some((s) => s.rounds.length > 0)).length;
+    expect(reachedChecker / cases.length).toBeGreaterThan(0.3);
+  });
+
+  it('mutations apply as described', () => {
+    const s = 'round 1: k to end\nround 2: p to end';
+    const cases: [Mutation, string][] = [
+      [{ kind: 'insert-token', at: 9, token: 'k2tog' }, 'round 1: k2togk to end\nround 2: p to end'],
+      [{ kind: 'delete', at: 0, length: 6 }, '1: k to end\nround 2: p to end'],
+      [{ kind: 'swap-lines', a: 0, b: 1 }, 'round 2: p to end\nround 1: k to end'],
+      [{ kind: 'truncate', at: 7 }, 'round 1'],
+      [{ kind: 'extreme-number', nth: 1, value: '99999999' }, 'round 1: k to end\nround 99999999: p to end'],
+      [{ kind: 'duplicate-line', line: 3, times: 1 }, 'round 1: k to end\nround 2: p to end\nround 2: p to end'],
+    ];
+    for (const [m, expected] of cases) expect(applyMutation(s, m), m.kind).toBe(expected);
+    // A swap of two equal words changes nothing; of two different stretches, exchanges them.
+    expect(applyMutation(s, { kind: 'swap', a: 0, b: 18, length: 5 })).toBe(s);
+    expect(applyMutation('abcXYZdef', { kind: 'swap', a: 0, b: 6, length: 3 })).toBe('defXYZabc');
+  });
+
+  it('the span check catches a wrong line, a wrong column and an offset past the end (so a pass means something)', () => {
+    const src = 'ab\r\ncd\ref';
+    const starts = [0, 4, 7];
+    expect(spanProblem(src, starts, { from: 4, to: 6, line: 2, column: 1, endLine: 2, endColumn: 3 })).toBeNull();
+    expect(spanProblem(src, starts, { from: 7, to: 9, line: 3, column: 1, endLine: 3, endColumn: 3 })).toBeNull();
+    expect(spanProblem(src, starts, { from: 4, to: 6, line: 1, column: 5, endLine: 2, endColumn: 3 })).toMatch(/start/);
+    expect(spanProblem(src, starts, { from: 4, to: 6, line: 2, column: 1, endLine: 2, endColumn: 4 })).toMatch(/end/);
+    expect(spanProblem(src, starts, { from: 4, to: 99, line: 2, column: 1, endLine: 2, endColumn: 3 })).toMatch(/outside/);
+  });
+
+  it('checkSource reports the stitches of the model and a timing', () => {
+    const r = checkSource('yarn A "Harbour" #1d3557\ncast on 10\nrounds 1-3: k to end\n');
+    expect(r.failure).toBeNull();
+    expect(r.stitches).toBe(30); // 3 rounds of 10 stitches (common practice: a plain round works every stitch once)
+    expect(r.cpuMs).toBeGreaterThanOrEqual(0);
+  });
+});
