@@ -80,23 +80,20 @@ type Built = ReturnType<typeof buildAst>;
 interface PieceResult { cst: CstNode | null; errors: ParseError[]; offset: number; line: number }
 
 const isToken = (e: CstElement): e is IToken => (e as IToken).image !== undefined;
-function shiftToken(t: IToken, dOff: number, dLine: number): IToken {
-  return {
-    ...t,
-    startOffset: t.startOffset + dOff, endOffset: t.endOffset === undefined ? undefined : t.endOffset + dOff,
-    startLine: t.startLine === undefined ? undefined : t.startLine + dLine, endLine: t.endLine === undefined ? undefined : t.endLine + dLine,
-  };
+type Located = { startOffset: number; endOffset?: number; startLine?: number; endLine?: number };
+function move(x: Located, dOff: number, dLine: number, seen: Set<object>): void {
+  if (seen.has(x)) return; // a token can sit in the CST and in an error: move it once
+  seen.add(x);
+  x.startOffset += dOff;
+  if (x.endOffset !== undefined) x.endOffset += dOff;
+  if (x.startLine !== undefined) x.startLine += dLine;
+  if (x.endLine !== undefined) x.endLine += dLine;
 }
-function shiftCst(n: CstNode, dOff: number, dLine: number): CstNode {
-  const children: Record<string, CstElement[]> = {};
-  for (const [k, list] of Object.entries(n.children)) children[k] = list.map((e) => (isToken(e) ? shiftToken(e, dOff, dLine) : shiftCst(e, dOff, dLine)));
-  const loc = n.location;
-  const location = loc && {
-    ...loc,
-    startOffset: loc.startOffset + dOff, endOffset: loc.endOffset === undefined ? undefined : loc.endOffset + dOff,
-    startLine: loc.startLine === undefined ? undefined : loc.startLine + dLine, endLine: loc.endLine === undefined ? undefined : loc.endLine + dLine,
-  };
-  return { ...n, children, location };
+function moveCst(n: CstNode, dOff: number, dLine: number, seen: Set<object>): void {
+  if (n.location) move(n.location as Located, dOff, dLine, seen);
+  for (const list of Object.values(n.children)) {
+    for (const e of list) if (isToken(e)) move(e, dOff, dLine, seen); else moveCst(e, dOff, dLine, seen);
+  }
 }
 
 /** Creates an incremental compiler (see the module comment for what it reuses). */
@@ -105,6 +102,8 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   // The previous source's pieces in order, what buildAst made of them, and the check of that AST.
   let previous: { order: PieceResult[]; built: Built; size: string | undefined; hadSyntax: boolean; checked: CheckOutput } | null = null;
   const stats = { pieces: 0, reusedPieces: 0, reusedCheck: false };
+  // CSTs handed out in the current compile (each at most once, since moving one changes it in place).
+  let taken = new Set<object>();
 
   function parsePiece(source: string, piece: IToken[], next: Map<string, PieceResult>): PieceResult {
     const first = piece[0];
@@ -112,15 +111,21 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     const key = `${first.startColumn}\u0000${piece.map((t) => t.tokenType.name).join(',')}\u0000${source.slice(first.startOffset, (last.endOffset ?? last.startOffset) + 1)}`;
     const line = first.startLine ?? 1;
     stats.pieces++;
-    const cached = pieces.get(key) ?? next.get(key);
+    const found = pieces.get(key) ?? next.get(key);
+    const cached = found && !taken.has(found.cst ?? found) ? found : undefined;
     if (cached) {
+      taken.add(cached.cst ?? cached);
       stats.reusedPieces++;
       const dOff = first.startOffset - cached.offset, dLine = line - cached.line;
-      const moved: PieceResult = dOff === 0 && dLine === 0 ? cached : {
-        cst: cached.cst && shiftCst(cached.cst, dOff, dLine),
-        errors: cached.errors.map((e) => ({ message: e.message, token: shiftToken(e.token, dOff, dLine), previous: e.previous && shiftToken(e.previous, dOff, dLine) })),
-        offset: first.startOffset, line,
-      };
+      if (dOff === 0 && dLine === 0) { next.set(key, cached); return cached; }
+      // Moved: shift its positions in place. Safe because nothing outside the cache keeps the
+      // CST or its tokens (the AST and diagnostics copy positions into fresh spans), and a
+      // piece is taken from the cache at most once per compile (see taken). The wrapper is
+      // new, so an AST built from the old positions is never taken for the new ones.
+      const seen = new Set<object>();
+      if (cached.cst) moveCst(cached.cst, dOff, dLine, seen);
+      for (const e of cached.errors) { move(e.token, dOff, dLine, seen); if (e.previous) move(e.previous, dOff, dLine, seen); }
+      const moved: PieceResult = { cst: cached.cst, errors: cached.errors, offset: first.startOffset, line };
       next.set(key, moved);
       return moved;
     }
@@ -129,6 +134,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     const cst = parser.statement();
     const errors = parser.errors.map((e) => ({ message: e.message, token: e.token, previous: (e as { previousToken?: IToken }).previousToken }));
     const made: PieceResult = { cst: cst ?? null, errors, offset: first.startOffset, line };
+    taken.add(made.cst ?? made);
     next.set(key, made);
     return made;
   }
@@ -196,6 +202,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     get lastStats() { return { ...stats }; },
     compile(source: string, options: CompileOptions = {}): CompileResult {
       stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false;
+      taken = new Set();
       let parsed: ReturnType<typeof parse>;
       try {
         parsed = parse(source);
