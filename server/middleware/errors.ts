@@ -17,13 +17,18 @@ interface BodyParserError { type?: string; status?: number; statusCode?: number;
  * True when the database could not be reached or dropped the connection:
  * Sequelize's ConnectionError family (refused, timed out, no connection
  * from the pool), or a query error the mariadb driver marks `fatal` (the
- * socket closed under a running query). Either way nothing was committed.
+ * socket closed under a running query) or that says the server is shutting
+ * down or killed the connection. Either way nothing was committed.
  */
 export function isDatabaseUnavailable(err: unknown): boolean {
   if (err instanceof ConnectionError) return true;
-  if (err instanceof DatabaseError) return (err.parent as { fatal?: boolean } | undefined)?.fatal === true;
-  return false;
+  if (!(err instanceof DatabaseError)) return false;
+  const parent = err.parent as { fatal?: boolean; code?: string } | undefined;
+  return parent?.fatal === true || DROPPED_CONNECTION_CODES.has(parent?.code ?? '');
 }
+
+/** Server-side codes for "this connection is going away" (shutdown, KILL), which the driver may not mark fatal. */
+const DROPPED_CONNECTION_CODES = new Set(['ER_SERVER_SHUTDOWN', 'ER_CONNECTION_KILLED', 'ER_QUERY_INTERRUPTED', 'ECONNRESET', 'EPIPE']);
 
 const DB_DOWN_MESSAGE = 'The database is not answering right now, so nothing was read or saved. Please try again in a moment.';
 
