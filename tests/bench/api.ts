@@ -1,17 +1,20 @@
 /**
  * The HTTP figure of `npm run bench`: p99 latency of `GET /api/patterns/:id`
  * (Bearer token, the Lantern Mitts demo pattern) against p99 of
- * `GET /api/health`, both at 100 connections with autocannon, one after the
- * other in the same run against the same server. Everything is private and
+ * `GET /api/health`, both at 100 connections with autocannon (in a child
+ * process), one after the other in the same run against the same server. Everything is private and
  * on loopback: its own MariaDB (`.data/bench`, port 3319 unless
  * BENCH_DB_PORT), a fake SMTP server on a free port, the app on a free port.
  * Everything started here is stopped at the end, also on failure.
  */
+import { execFile } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import type { Server } from 'node:http';
+import { createServer } from 'node:http';
+import { createRequire } from 'node:module';
 import path from 'node:path';
-import autocannon from 'autocannon';
+import { promisify } from 'node:util';
+import type autocannon from 'autocannon';
 import { createApp } from '../../server/app.ts';
 import { createSequelize } from '../../server/db/connection.ts';
 import { startPrivateMariaDB } from '../../server/db/launcher.ts';
@@ -20,6 +23,8 @@ import { startFakeSmtp } from '../../server/fakes/smtp.ts';
 import { createMailer } from '../../server/mail/mailer.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
+const run = promisify(execFile);
+const cli = path.join(path.dirname(createRequire(import.meta.url).resolve('autocannon/package.json')), 'autocannon.js');
 
 /** One autocannon run, reduced to what the bench reports (latencies in ms). */
 export interface LoadRun { path: string; p50: number; p99: number; requestsPerSecond: number; requests: number; non2xx: number; errors: number }
@@ -27,8 +32,16 @@ export interface LoadRun { path: string; p50: number; p99: number; requestsPerSe
 /** The API figure with both runs. */
 export interface ApiFigure { connections: number; seconds: number; pattern: LoadRun; health: LoadRun; p99Ratio: number }
 
+/**
+ * One autocannon run in its own process (the autocannon CLI with --json), so the load
+ * generator does not share the server's event loop.
+ */
 async function load(url: string, urlPath: string, seconds: number, connections: number, headers: Record<string, string>): Promise<LoadRun> {
-  const r = await autocannon({ url: url + urlPath, connections, duration: seconds, headers });
+  const args = [cli, '-c', String(connections), '-d', String(seconds), '--json'];
+  for (const [k, v] of Object.entries(headers)) args.push('-H', `${k}=${v}`);
+  args.push(url + urlPath);
+  const { stdout } = await run(process.execPath, args, { maxBuffer: 16 * 1024 * 1024 });
+  const r = JSON.parse(stdout) as autocannon.Result;
   return {
     path: urlPath, p50: r.latency.p50, p99: r.latency.p99, requestsPerSecond: r.requests.average, requests: r.requests.total,
     non2xx: r.non2xx, errors: r.errors + r.timeouts,
@@ -59,8 +72,24 @@ export async function measureApi(seconds = 5, connections = 100): Promise<ApiFig
       sequelize, mailer, jwtSecret: randomBytes(32).toString('hex'), storageDir: path.join(root, '.data', 'bench', 'uploads'),
       env: 'test', distDir: null, bcryptCost: 10, rateLimits: { login: generous, register: generous, reset: generous },
     });
-    const server = await new Promise<Server>((resolve) => { const s = app.listen(0, '127.0.0.1', () => resolve(s)); });
-    stops.push(() => new Promise<void>((resolve) => { server.closeAllConnections(); server.close(() => resolve()); }));
+    // Count requests whose handler has not answered yet: autocannon stops at its deadline and
+    // drops its sockets with requests still being handled, and those handlers must finish before
+    // the database goes away (else they log errors at shutdown). A dropped socket does not stop
+    // a handler, so count the handler's own res.end, not the socket.
+    let inFlight = 0;
+    const server = createServer((req, res) => {
+      inFlight++;
+      let done = false;
+      const end = res.end.bind(res) as (...args: unknown[]) => typeof res;
+      res.end = ((...args: unknown[]) => { if (!done) { done = true; inFlight--; } return end(...args); }) as typeof res.end;
+      app(req, res);
+    });
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', () => resolve()));
+    stops.push(async () => {
+      server.close();
+      for (let waited = 0; inFlight > 0 && waited < 15_000; waited += 50) await new Promise((r) => setTimeout(r, 50));
+      server.closeAllConnections();
+    });
     const address = server.address();
     if (!address || typeof address === 'string') throw new Error('bench server has no port');
     const url = `http://127.0.0.1:${address.port}`;
