@@ -3,9 +3,11 @@
  * source and reports. Exit codes (a contract, notation.md): 0 no error
  * (warnings allowed), 1 errors, 2 usage problem or unreadable file.
  * With --json it prints exactly one JSON object on stdout (toCheckJson).
+ * The render commands (chart, instructions, summary, plan) live in render-commands.ts.
  */
 import { readFileSync } from 'node:fs';
 import { compile, toCheckJson, formatDiagnosticText, type CompileResult } from '../../shared/index.ts';
+import { RENDER_COMMANDS, runRenderCommand } from './render-commands.ts';
 
 const USAGE = 'usage: npm run loop -- check FILE [--json] [--size NAME]';
 
@@ -66,6 +68,7 @@ function textReport(file: string, r: CompileResult): string {
 
 /** Runs the command line; returns the exit code. */
 export function main(argv: string[], out: (s: string) => void, err: (s: string) => void): number {
+  if ((RENDER_COMMANDS as readonly string[]).includes(argv[0] ?? '')) return runRenderCommand(argv, out, err);
   const args = parseArgs(argv);
   if ('error' in args) { err(args.error); return 2; }
   const source = readSource(args.file);
