@@ -3,11 +3,13 @@
  * source and reports. Exit codes (a contract, notation.md): 0 no error
  * (warnings allowed), 1 errors, 2 usage problem or unreadable file.
  * With --json it prints exactly one JSON object on stdout (toCheckJson).
- * The render commands (chart, instructions, summary, plan) live in render-commands.ts.
+ * The render commands (chart, instructions, summary, plan) live in render-commands.ts;
+ * `diff OLD NEW [--json] [--size NAME]` lives in diff-command.ts.
  */
 import { readFileSync } from 'node:fs';
 import { compile, toCheckJson, formatDiagnosticText, type CompileResult } from '../../shared/index.ts';
 import { RENDER_COMMANDS, runRenderCommand } from './render-commands.ts';
+import { runDiff } from './diff-command.ts';
 
 const USAGE = 'usage: npm run loop -- check FILE [--json] [--size NAME]';
 
@@ -83,6 +85,9 @@ export function main(argv: string[], out: (s: string) => void, err: (s: string) 
 
 const isEntry = process.argv[1] && import.meta.url === new URL(`file://${process.argv[1]}`).href;
 if (isEntry) {
-  const code = main(process.argv.slice(2), (s) => process.stdout.write(`${s}\n`), (s) => process.stderr.write(`${s}\n`));
-  process.exitCode = code;
+  const argv = process.argv.slice(2);
+  const out = (s: string) => { process.stdout.write(`${s}\n`); };
+  const err = (s: string) => { process.stderr.write(`${s}\n`); };
+  // diff reads two files asynchronously, so it is dispatched here rather than in the synchronous main().
+  process.exitCode = argv[0] === 'diff' ? await runDiff(argv.slice(1), { out, err }) : main(argv, out, err);
 }
