@@ -64,3 +64,16 @@ describe('render commands (exit codes as check: 0 ok, 1 errors, 2 usage or unrea
     expect(r.out).toContain('hand circumference');
   });
 });
+
+describe('npm run loop dispatches the render commands', () => {
+  it('chart, instructions and plan through the main entry, check unchanged', async () => {
+    const { main } = await import('../../../server/cli/loop.ts');
+    const out: string[] = [];
+    const quiet = () => undefined;
+    expect(main(['instructions', ex('quarry-tote-panel.loop')], (s) => out.push(s), quiet)).toBe(0);
+    expect(out.join('\n')).toContain('Row 1 is a right-side (RS) row.');
+    expect(main(['plan', ex('quarry-tote-panel.loop'), '--rounds', '10-22'], quiet, quiet)).toBe(0);
+    expect(main(['chart', ex('quarry-tote-panel.loop'), '--size', 'M'], quiet, quiet)).toBe(2);
+    expect(main(['check', ex('quarry-tote-panel.loop'), '--json'], quiet, quiet)).toBe(0);
+  });
+});
