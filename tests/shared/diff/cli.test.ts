@@ -1,6 +1,7 @@
 // The diff command of the CLI (server/cli/diff-command.ts): exit codes as
 // notation.md gives them for every command (0 no error, 1 errors, 2 usage or
 // unreadable file) and --json printing exactly one RevisionDiff object.
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -58,5 +59,16 @@ describe('loop diff', () => {
       expect(r.out).toEqual([]);
       expect(r.err.join('\n')).toMatch(/usage|cannot read|not UTF-8|neither revision/);
     }
+  });
+
+  it('is reachable as `npm run loop -- diff` (the real entry point, server/cli/loop.ts)', () => {
+    const tsx = join(HERE, '..', '..', '..', 'node_modules', '.bin', 'tsx');
+    const loop = join(HERE, '..', '..', '..', 'server', 'cli', 'loop.ts');
+    const ok = spawnSync(tsx, [loop, 'diff', fixture('header-change.old.loop'), fixture('header-change.new.loop'), '--json'], { encoding: 'utf8' });
+    expect(ok.status).toBe(0);
+    expect(JSON.parse(ok.stdout).header.yarns.recoloured).toEqual([{ name: 'B', old: '#e6f2ee', new: '#5a7d4f' }]);
+    const bad = spawnSync(tsx, [loop, 'diff', fixture('header-change.old.loop')], { encoding: 'utf8' });
+    expect(bad.status).toBe(2);
+    expect(bad.stdout).toBe('');
   });
 });
