@@ -73,20 +73,31 @@ export class SizeView {
   keys(): { exact: string[]; shape: string[] } {
     const { store, rounds, yarns } = this.model.stitches;
     const exact: string[] = [], shape: string[] = [];
+    const slices = new Map<string, { ex: Hasher; sh: string }>();
     for (let r = 0; r < rounds.length; r++) {
       const rec = rounds[r];
-      const ex = new Hasher(), sh = new Hasher();
-      const side = rec.side === 'WS' ? 1 : 0;
-      ex.add(side); sh.add(side); ex.add(rec.count);
-      let prev = -1;
-      for (let k = 0; k < rec.count; k++) {
-        const i = this.at(r, k);
-        const tok = (store.op[i] | ((store.flags[i] & FLAG_BACKING) << 8)) >>> 0;
-        const y = this.yarnHash[store.yarn[i]];
-        ex.add(tok); ex.add(y);
-        const run = (tok * 31 + y) >>> 0;
-        if (run !== prev) { sh.add(tok); sh.add(y); prev = run; }
+      const slice = `${rec.offset}:${rec.count}:${rec.side}`;
+      let hashed = slices.get(slice);
+      if (!hashed) {
+        // Rounds may share one stored slice (shared/check/reuse.ts): hash its stitches once.
+        const ex = new Hasher(), sh = new Hasher();
+        const side = rec.side === 'WS' ? 1 : 0;
+        ex.add(side); sh.add(side); ex.add(rec.count);
+        let prev = -1;
+        for (let k = 0; k < rec.count; k++) {
+          const i = this.at(r, k);
+          const tok = (store.op[i] | ((store.flags[i] & FLAG_BACKING) << 8)) >>> 0;
+          const y = this.yarnHash[store.yarn[i]];
+          ex.add(tok); ex.add(y);
+          const run = (tok * 31 + y) >>> 0;
+          if (run !== prev) { sh.add(tok); sh.add(y); prev = run; }
+        }
+        hashed = { ex, sh: sh.key() };
+        slices.set(slice, hashed);
       }
+      const ex = new Hasher();
+      ex.a = hashed.ex.a; ex.b = hashed.ex.b;
+      const sh = { key: () => hashed.sh };
       ex.add(rec.note === null ? 0 : hashString(`n${rec.note}`));
       for (const f of [...rec.floats].sort((x, z) => x.yarn - z.yarn)) { ex.add(hashString(yarns[f.yarn] ?? '')); ex.add(f.stitches); }
       for (const m of rec.markers) { ex.add(hashString(m.name)); ex.add(m.at); }
