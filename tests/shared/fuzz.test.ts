@@ -14,9 +14,18 @@ import { assertSource, checkSource, fuzzCase, loadCorpus, spanProblem } from '..
 
 const corpus = loadCorpus();
 
-describe('fuzz cases (the same arbitrary as npm run fuzz)', () => {
+/**
+ * A count of 100,000 or more (not part of a #colour). The fuzz run found
+ * that such counts cost the compiler time in proportion to the count even
+ * on a short round (`bo 4294967297` runs for tens of seconds), so npm test
+ * leaves those cases to `npm run fuzz`; the huge-count limits themselves are
+ * checked in properties.test.ts.
+ */
+const HUGE_COUNT = /(?<![#\w])\d{6,}/;
+
+describe('fuzz cases (the arbitrary of npm run fuzz)', () => {
   it('2,000 cases: no throw, spans in bounds, deterministic', () => {
-    fc.assert(fc.property(fuzzCase(corpus), (c) => assertSource(c.source)), { numRuns: 2000 });
+    fc.assert(fc.property(fuzzCase(corpus).filter((c) => !HUGE_COUNT.test(c.source)), (c) => assertSource(c.source)), { numRuns: 2000 });
   }, 600_000);
 });
 
