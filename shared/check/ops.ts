@@ -15,7 +15,7 @@ import { closestName, type Facts } from '../diagnostics';
 const sizeFacts = (m: Machine): Facts => (m.scopeName ? { word: m.word, round: m.roundNo, segment: m.scopeName } : { word: m.word, round: m.roundNo });
 
 /** Works one stitch operation once: takes what it consumes, puts what it produces. */
-export function workStitch(m: Machine, info: StitchInfo, yarn: number, src: number, flags: number): void {
+export function workStitch(m: Machine, info: StitchInfo, yarn: number, src: number, flags: number): number {
   const c = info.consumes;
   let got = 0;
   for (let j = 0; j < c; j++) {
@@ -29,9 +29,10 @@ export function workStitch(m: Machine, info: StitchInfo, yarn: number, src: numb
       m.ctx.report('LW303', m.sources.spans[src], { ...sizeFacts(m), stitch: info.name, needs: c, left: got });
       m.problem = true;
     }
-    if (got === 0) return;
+    if (got === 0) return 0;
   }
   for (let j = 0; j < info.produces; j++) m.putFront(info.code, yarn, src, flags);
+  return got;
 }
 
 /** Where a "to ..." run stops: the input index, or -1 after a diagnostic. */
@@ -176,7 +177,17 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       }
       if (reps < 0) return;
       if (!m.room(reps * info.produces, op.span)) return;
-      for (let r = 0; r < reps; r++) workStitch(m, info, y, src, 0);
+      for (let r = 0; r < reps; r++) {
+        if (workStitch(m, info, y, src, 0) === 0 && info.consumes > 0) {
+          // The needle is empty here, so every remaining working would find
+          // nothing too: count them at once instead of looping (a huge count
+          // such as `bo 4294967297` must not hang the compiler).
+          const rest = reps - r - 1;
+          m.worked += rest * info.consumes;
+          m.missing += rest * info.consumes;
+          break;
+        }
+      }
       return;
     }
     case 'group': {
