@@ -35,7 +35,7 @@
 import type { CstElement, CstNode, IToken, TokenType } from 'chevrotain';
 import type { Diagnostic, Span } from './types';
 import { compile, type CompileOptions, type CompileResult } from './index';
-import { lexer, tokenSpan, spanAt, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
+import { lexSource, tokenSpan, spanAt, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
 import { getParser, type ParseError } from './notation/parser';
 import { buildAst } from './notation/to-ast';
 import { makeDiagnostic, sortDiagnostics } from './diagnostics';
@@ -141,21 +141,8 @@ export function createIncrementalCompiler(): IncrementalCompiler {
 
   /** parseSource (shared/notation/index.ts) with the per-piece cache. */
   function parse(source: string): { ast: PatternAst; diagnostics: Diagnostic[]; order: PieceResult[]; built: Built; sameAst: boolean } {
-    const diagnostics: Diagnostic[] = [];
-    const lexed = lexer.tokenize(source);
-    let lexCount = 0;
-    for (let i = 0; i < lexed.errors.length; i++) {
-      const first = lexed.errors[i];
-      let end = first.offset + first.length;
-      while (i + 1 < lexed.errors.length && lexed.errors[i + 1].offset === end) { i++; end = lexed.errors[i].offset + lexed.errors[i].length; }
-      lexCount++;
-      if (lexCount > MAX_SYNTAX_DIAGNOSTICS) continue;
-      const text = source.slice(first.offset, end);
-      const shown = text.length > 20 ? `${text.slice(0, 20)}...` : text;
-      const span: Span = { from: first.offset, to: end, line: first.line ?? 1, column: first.column ?? 1, endLine: first.line ?? 1, endColumn: (first.column ?? 1) + (end - first.offset) };
-      diagnostics.push(makeDiagnostic('LW101', span, { text: JSON.stringify(shown) }));
-    }
-    if (lexCount > MAX_SYNTAX_DIAGNOSTICS) diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: lexCount - MAX_SYNTAX_DIAGNOSTICS, code: 'LW101' }));
+    const lexed = lexSource(source);
+    const diagnostics: Diagnostic[] = lexed.diagnostics;
 
     // parseTokens (parser.ts), piece by piece through the cache.
     const tokens = lexed.tokens;

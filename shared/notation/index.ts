@@ -40,12 +40,14 @@ export interface ParsedSource {
   diagnostics: Diagnostic[];
 }
 
-/** Reads a source. Never throws on user input; problems are diagnostics. */
-export function parseSource(source: string): ParsedSource {
+/**
+ * Lexes a source and turns the lexer's errors into diagnostics: adjacent
+ * unreadable characters are one LW101; past MAX_SYNTAX_DIAGNOSTICS one LW902
+ * says how many more. Shared by parseSource and the incremental compiler.
+ */
+export function lexSource(source: string): { tokens: IToken[]; groups: Record<string, IToken[]>; diagnostics: Diagnostic[] } {
   const diagnostics: Diagnostic[] = [];
   const lexed = lexer.tokenize(source);
-
-  // Adjacent unreadable characters are one problem, not one per character.
   let lexCount = 0;
   for (let i = 0; i < lexed.errors.length; i++) {
     const first = lexed.errors[i];
@@ -61,6 +63,13 @@ export function parseSource(source: string): ParsedSource {
   if (lexCount > MAX_SYNTAX_DIAGNOSTICS) {
     diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: lexCount - MAX_SYNTAX_DIAGNOSTICS, code: 'LW101' }));
   }
+  return { tokens: lexed.tokens, groups: lexed.groups, diagnostics };
+}
+
+/** Reads a source. Never throws on user input; problems are diagnostics. */
+export function parseSource(source: string): ParsedSource {
+  const lexed = lexSource(source);
+  const diagnostics = lexed.diagnostics;
 
   const parsed = parseTokens(lexed.tokens, MAX_SYNTAX_DIAGNOSTICS * 4);
   let parseCount = 0;
