@@ -55,7 +55,7 @@ const T = (name: string): TokenType => {
   if (!t) throw new Error(`incremental compiler: no token type ${name}`); // programmer error: the token set changed
   return t;
 };
-const starters = new Set<TokenType>(['Title', 'Designer', 'Sizes', 'Gauge', 'Yarn', 'Work', 'Float', 'Cast', 'Ladder'].map(T));
+const starters = new Set<TokenType>(['Title', 'Designer', 'Item', 'Sizes', 'Gauge', 'Yarn', 'Work', 'Float', 'Cast', 'Ladder'].map(T));
 const roundWords = new Set<TokenType>(['Round', 'Rounds', 'Row', 'Rows'].map(T));
 const afterRoundNumber = new Set<TokenType>(['Colon', 'Dash', 'Every', 'At', 'In'].map(T));
 const [NumberLit, Slash, Chart, Name, Colon] = ['NumberLit', 'Slash', 'Chart', 'Name', 'Colon'].map(T);

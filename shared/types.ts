@@ -48,6 +48,8 @@ export interface RoundSummary {
 export interface PatternHeader {
   title: string | null;
   designer: string | null;
+  /** What the pattern makes, when the `item` line says: a hat, or a mitt/glove (worn on the hand). */
+  item: 'hat' | 'hand' | null;
   sizes: string[];
   construction: 'round' | 'flat';
   gauge: { stitches: number; rows: number; per: '10cm' | '4in' } | null;

@@ -48,6 +48,7 @@ export function resolveHeader(h: HeaderAst, out: Diagnostic[], origin: Span): Re
   const header: PatternHeader = {
     title: h.title?.value ?? null,
     designer: h.designer?.value ?? null,
+    item: resolveItem(h.item, out),
     sizes: (h.sizes ?? []).map((s) => s.name),
     construction: h.construction?.value ?? 'round',
     gauge: declared,
@@ -70,4 +71,19 @@ export function resolveHeader(h: HeaderAst, out: Diagnostic[], origin: Span): Re
     floatLimitStitches: gauge ? floatLimitInStitches(floatLimit, gauge) : null,
     stitchesPerInch: gauge ? gauge.stitchesPerInch : null,
   };
+}
+
+/** Item words the trade uses, by the body measurement they are compared with. */
+const ITEM_WORDS: Record<string, 'hat' | 'hand'> = {
+  hat: 'hat', hats: 'hat', beanie: 'hat', toque: 'hat', cap: 'hat',
+  mitt: 'hand', mitts: 'hand', mitten: 'hand', mittens: 'hand', glove: 'hand', gloves: 'hand', hand: 'hand',
+};
+
+/** The `item` line as a body-measurement kind; an unknown word is LW214 and gives null. */
+function resolveItem(item: { word: string; span: Span } | null, out: Diagnostic[]): 'hat' | 'hand' | null {
+  if (!item) return null;
+  const kind = ITEM_WORDS[item.word.toLowerCase()];
+  if (kind) return kind;
+  out.push(makeDiagnostic('LW214', item.span, { word: item.word, known: 'hat, mitts, gloves' }));
+  return null;
 }

@@ -65,6 +65,9 @@ const list: CodeInfo[] = [
   { code: 'LW213', title: 'Wrong side word', severity: 'warning',
     message: (f) => `this pattern is worked ${f.construction} but the line says ${f.word}`,
     hint: (f) => `write ${f.expected}` },
+  { code: 'LW214', title: 'Unknown item', severity: 'warning',
+    message: (f) => `"${f.word}" is not an item the finished size can be compared for`,
+    hint: (f) => `write one of ${f.known}, or leave the item line out` },
   { code: 'LW301', title: 'Count does not match the needle', severity: 'error',
     message: (f) => `${f.word} ${f.round}${where(f)} works ${s(f.worked, 'stitch', 'stitches')} but ${f.onNeedle} ${Number(f.onNeedle) === 1 ? 'is' : 'are'} on the needle${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => {

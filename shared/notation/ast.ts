@@ -85,6 +85,8 @@ export interface LadderLine {
 export interface HeaderAst {
   title: { value: string; span: Span } | null;
   designer: { value: string; span: Span } | null;
+  /** What the pattern makes, as written (`item mitts`). */
+  item: { word: string; span: Span } | null;
   sizes: NameRef[] | null;
   sizesSpan: Span | null;
   gauge: { stitches: number; rows: number; length: number; unit: 'cm' | 'in'; span: Span } | null;

@@ -63,6 +63,7 @@ class LoopParser extends CstParser {
     this.OR(this.alts(1, () => [
       { ALT: () => this.SUBRULE(this.titleLine) },
       { ALT: () => this.SUBRULE(this.designerLine) },
+      { ALT: () => this.SUBRULE(this.itemLine) },
       { ALT: () => this.SUBRULE(this.sizesLine) },
       { ALT: () => this.SUBRULE(this.gaugeLine) },
       { ALT: () => this.SUBRULE(this.yarnLine) },
@@ -83,6 +84,12 @@ class LoopParser extends CstParser {
   public designerLine = this.RULE('designerLine', () => {
     this.CONSUME(T.Designer);
     this.CONSUME(T.Text);
+  });
+
+  /** `item mitts`: what the pattern makes, for finished-size comparisons. */
+  public itemLine = this.RULE('itemLine', () => {
+    this.CONSUME(T.Item);
+    this.CONSUME(T.Name, { LABEL: 'item' });
   });
 
   public sizesLine = this.RULE('sizesLine', () => {
@@ -383,7 +390,7 @@ export function getParser(): LoopParser {
 }
 
 /** Token types that can start a statement. */
-const starters = new Set<TokenType>([T.Title, T.Designer, T.Sizes, T.Gauge, T.Yarn, T.Work, T.Float, T.Cast, T.Ladder]);
+const starters = new Set<TokenType>([T.Title, T.Designer, T.Item, T.Sizes, T.Gauge, T.Yarn, T.Work, T.Float, T.Cast, T.Ladder]);
 
 /**
  * True when token i starts a statement. `round`/`row` words start one only

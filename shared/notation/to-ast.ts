@@ -73,7 +73,7 @@ const unquote = (t: IToken) => t.image.slice(1, -1);
 /** Builds the AST from parsed statements; returns it with the diagnostics found on the way. */
 export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; diagnostics: Diagnostic[] } {
   const diagnostics: Diagnostic[] = [];
-  const header: HeaderAst = { title: null, designer: null, sizes: null, sizesSpan: null, gauge: null, yarns: [], construction: null, floatLimit: null };
+  const header: HeaderAst = { title: null, designer: null, item: null, sizes: null, sizesSpan: null, gauge: null, yarns: [], construction: null, floatLimit: null };
   const ast: PatternAst = { header, castOn: null, rounds: [], charts: [], ladders: [], comments: [] };
   const twice = (what: string, name: string, span: Span) => diagnostics.push(makeDiagnostic('LW206', span, { what, name }));
 
@@ -249,6 +249,13 @@ export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; dia
         const key = kind === 'titleLine' ? 'title' : 'designer';
         if (header[key]) twice('the', key, span);
         header[key] = { value: unquote(t).trim(), span };
+        break;
+      }
+      case 'itemLine': {
+        const t = toks(n, 'item')[0];
+        if (!t) break;
+        if (header.item) twice('the', 'item', span);
+        header.item = { word: t.image, span: tokenSpan(t) };
         break;
       }
       case 'sizesLine': {

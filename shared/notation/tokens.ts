@@ -28,6 +28,7 @@ function keyword(word: string): TokenType {
 // Longer words first where one is a prefix of another (rounds/round, marker/mark).
 export const Title = keyword('title');
 export const Designer = keyword('designer');
+export const Item = keyword('item');
 export const Sizes = keyword('sizes');
 export const Gauge = keyword('gauge');
 export const Stitches = keyword('stitches');

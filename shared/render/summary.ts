@@ -66,8 +66,8 @@ export interface SummaryOptions {
   /** Metres per 100 g from each yarn's ball band, by yarn name, to give grams. */
   metresPer100g?: Readonly<Record<string, number>>;
   /**
-   * What the item is, when the caller knows (the notation has no way to say
-   * it yet): a hat or a hand (mitts, gloves). Without it no body comparison.
+   * What the item is: a hat or a hand (mitts, gloves). Defaults to the
+   * pattern's `item` line (PatternHeader.item). Without either, no body comparison.
    */
   item?: BodyItem;
 }
@@ -75,8 +75,10 @@ export interface SummaryOptions {
 const WEARERS: Readonly<Record<BodyItem, Wearer[]>> = { hat: ['baby', 'toddler', 'child', 'adult'], hand: ['child', 'woman', 'man'] };
 
 /** Summarises a compile result. Never throws on user input. */
-export function summarize(result: CompileResult, options: SummaryOptions = {}): PatternSummary {
+export function summarize(result: CompileResult, given: SummaryOptions = {}): PatternSummary {
   const { header } = result;
+  // The pattern's own `item` line says what it is unless the caller overrides it.
+  const options: SummaryOptions = { ...given, item: given.item ?? header.item ?? undefined };
   const gaps: string[] = [];
   const g = header.gauge ? tryNormalizeGauge(header.gauge) : null;
   const gauge = g && g.ok ? g.value : null;
@@ -94,7 +96,7 @@ export function summarize(result: CompileResult, options: SummaryOptions = {}): 
     if (sum.yarn && !assumption) assumption = sum.yarn.model.assumption;
     return sum;
   });
-  if (!options.item) gaps.push('The pattern does not say what the item is (the notation has no way to say "hat" or "mitt" yet), so the finished size is not compared with body measurements.');
+  if (!options.item) gaps.push('The pattern does not say what the item is (add a line such as `item hat` or `item mitts`), so the finished size is not compared with body measurements.');
   const longest = Math.max(0, ...sizes.flatMap((s) => s.floats.map((f) => f.stitches)));
   const longestLen = gauge && longest > 0 ? stitchesToLength(longest, gauge) : null;
   const cautions = [

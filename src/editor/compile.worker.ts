@@ -29,7 +29,7 @@ function tokensOf(source: string): HighlightToken[] {
 }
 
 const emptyHeader: CompiledView['header'] = {
-  title: null, designer: null, sizes: [], construction: 'round', gauge: null, yarns: [], floatLimit: { value: 1, unit: 'in' },
+  title: null, designer: null, item: null, sizes: [], construction: 'round', gauge: null, yarns: [], floatLimit: { value: 1, unit: 'in' },
 };
 
 /** Draws the chart the page asked for from the newest compile. */

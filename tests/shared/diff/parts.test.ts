@@ -8,7 +8,7 @@ import { diffDiagnostics } from '../../../shared/diff/diagnostics';
 import type { RoundPairing } from '../../../shared/diff/size-diff';
 
 const header = (over: Partial<PatternHeader> = {}): PatternHeader => ({
-  title: 'Lantern Mitts', designer: 'Maren Tolley', sizes: ['S', 'M', 'L'], construction: 'round',
+  title: 'Lantern Mitts', designer: 'Maren Tolley', item: 'hand', sizes: ['S', 'M', 'L'], construction: 'round',
   gauge: { stitches: 32, rows: 36, per: '10cm' }, yarns: [{ name: 'A', label: 'Lantern Gold', colour: '#d9a441' }, { name: 'B', label: 'Dusk', colour: '#2b2d42' }],
   floatLimit: { value: 1, unit: 'in' }, ...over,
 });

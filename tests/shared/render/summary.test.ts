@@ -30,10 +30,12 @@ describe('summary', () => {
   });
 
   it('compares with body measurements only when told what the item is, and says so otherwise', () => {
-    const { result } = demo('lantern-mitts.loop');
-    expect(summarize(result).sizes[0].body).toBeNull();
-    expect(summarize(result).gaps.join(' ')).toMatch(/does not say what the item is/);
-    const withItem = summarize(result, { item: 'hand' });
+    const { source, result } = demo('lantern-mitts.loop');
+    // The demo says `item mitts`; without that line there is no comparison.
+    const bare = compile(source.replace('item mitts\n', ''));
+    expect(summarize(bare).sizes[0].body).toBeNull();
+    expect(summarize(bare).gaps.join(' ')).toMatch(/does not say what the item is/);
+    const withItem = summarize(result);
     // 64 sts at 32 sts per 10 cm = 20 cm = 7.87 in: inside the man's 7.5-9 in range, negative ease at the middle.
     const m = withItem.sizes.find((s) => s.name === 'M')!;
     expect(m.body!.comparisons.map((c) => c.body.wearer)).toEqual(['child', 'woman', 'man']);
