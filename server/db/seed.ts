@@ -19,7 +19,7 @@ export const DEMO_PASSWORD = 'saltmarsh-demo';
 export const DEMO_ACCOUNTS: readonly { email: string; name: string; roles: GlobalRole[]; note: string }[] = [
   { email: 'designer@saltmarsh.example', name: 'Maren Tolley', roles: ['designer'], note: 'designer' },
   { email: 'editor@saltmarsh.example', name: 'Idris Penhale', roles: ['editor'], note: 'technical editor' },
-  { email: 'knitter@saltmarsh.example', name: 'Sorrel Quayle', roles: ['knitter'], note: 'test knitter' },
+  { email: 'knitter@saltmarsh.example', name: 'Sorrel Quayle', roles: ['knitter'], note: 'knitter' },
   { email: 'knitter2@saltmarsh.example', name: 'Bram Ottery', roles: ['knitter'], note: 'test knitter' },
 ];
 

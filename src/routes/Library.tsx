@@ -6,6 +6,7 @@
 import { useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router';
 import { useImportPattern, usePatternList } from '../api/usePatterns';
+import { useMe } from '../api/useAuth';
 import { errorText } from '../api/client';
 import { Loading } from '../components/Loading';
 import { Notice } from '../components/Notice';
@@ -18,6 +19,9 @@ const MAX_IMPORT_BYTES = 1024 * 1024;
 
 export function Component() {
   const list = usePatternList();
+  const me = useMe();
+  // Only designers (and admins) may create or import patterns; the server says 403 to anyone else.
+  const canCreate = (me.data?.roles ?? []).some((r) => r === 'designer' || r === 'admin');
   const importPattern = useImportPattern();
   const navigate = useNavigate();
   const fileInput = useRef<HTMLInputElement>(null);
@@ -60,14 +64,14 @@ export function Component() {
             <h1 className="text-title text-tide-900">Patterns</h1>
             <p className="mt-1 text-sm text-tide-700">Everything you design, review or test-knit.</p>
           </div>
-          <div className="flex gap-2">
+          {canCreate && <div className="flex gap-2">
             <input ref={fileInput} type="file" accept=".loop,text/plain" className="hidden" aria-hidden="true" tabIndex={-1}
               onChange={(e) => { onFile(e.target.files?.[0]); e.target.value = ''; }} />
             <button type="button" className="btn btn-quiet" onClick={() => fileInput.current?.click()} disabled={importPattern.isPending}>
               {importPattern.isPending ? 'Importing…' : 'Import .loop file'}
             </button>
             <button type="button" className="btn btn-primary" onClick={() => setCreating(true)}>New pattern</button>
-          </div>
+          </div>}
         </div>
 
         {importError && <Notice tone="error" className="mt-4">{importError}</Notice>}
