@@ -7,9 +7,9 @@
  * the `RevisionDiff` of shared/diff/types.ts (the same object
  * `GET /api/patterns/:id/diff` returns).
  */
-import { readFile } from 'node:fs/promises';
 import { compile } from '../../shared/index.ts';
 import { diffCompiled, formatDiffText } from '../../shared/diff/index.ts';
+import { readSource } from './source-file.ts';
 
 const USAGE = 'usage: npm run loop -- diff OLD.loop NEW.loop [--json] [--size NAME]';
 
@@ -35,22 +35,6 @@ export function parseDiffArgs(argv: readonly string[]): DiffArgs | { error: stri
   return { oldFile: files[0], newFile: files[1], json, ...(size !== undefined ? { size } : {}) };
 }
 
-/** Reads a source strictly as UTF-8; an error message when it cannot. */
-async function readSourceFile(file: string): Promise<string | { error: string }> {
-  let bytes: Buffer;
-  try {
-    bytes = await readFile(file);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    return { error: `cannot read ${file}${code ? ` (${code})` : ''}` };
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    return { error: `${file} is not UTF-8 text` };
-  }
-}
-
 /** Where the command writes; defaults to the process's streams. */
 export interface DiffIo { out(s: string): void; err(s: string): void }
 
@@ -66,7 +50,7 @@ const processIo: DiffIo = {
 export async function runDiff(argv: readonly string[], io: DiffIo = processIo): Promise<number> {
   const args = parseDiffArgs(argv);
   if ('error' in args) { io.err(args.error); return 2; }
-  const [oldSource, newSource] = await Promise.all([readSourceFile(args.oldFile), readSourceFile(args.newFile)]);
+  const [oldSource, newSource] = [readSource(args.oldFile), readSource(args.newFile)];
   if (typeof oldSource !== 'string') { io.err(oldSource.error); return 2; }
   if (typeof newSource !== 'string') { io.err(newSource.error); return 2; }
   const opts = args.size !== undefined ? { size: args.size } : {};

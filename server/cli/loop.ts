@@ -6,10 +6,10 @@
  * The render commands (chart, instructions, summary, plan) live in render-commands.ts;
  * `diff OLD NEW [--json] [--size NAME]` lives in diff-command.ts.
  */
-import { readFileSync } from 'node:fs';
 import { compile, toCheckJson, formatDiagnosticText, type CompileResult } from '../../shared/index.ts';
 import { RENDER_COMMANDS, runRenderCommand } from './render-commands.ts';
 import { runDiff } from './diff-command.ts';
+import { readSource } from './source-file.ts';
 
 const USAGE = 'usage: npm run loop -- check FILE [--json] [--size NAME]';
 
@@ -37,22 +37,6 @@ export function parseArgs(argv: string[]): Args | { error: string } {
   }
   if (!file) return { error: `no file given\n${USAGE}` };
   return { command, file, json, size };
-}
-
-/** Reads a source as UTF-8 (strictly); returns an error message when it cannot. */
-export function readSource(file: string): string | { error: string } {
-  let bytes: Buffer;
-  try {
-    bytes = readFileSync(file);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    return { error: `cannot read ${file}${code ? ` (${code})` : ''}` };
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    return { error: `${file} is not UTF-8 text` };
-  }
 }
 
 function textReport(file: string, r: CompileResult): string {

@@ -13,7 +13,7 @@ import { compile, formatDiagnosticText, type CompileResult } from '../../shared/
 import {
   buildChart, formatInstructionsText, formatPlanText, formatSummaryText, planBacking, renderBackSvg, renderChartSvg, summarize, writeInstructions,
 } from '../../shared/render/index.ts';
-import { readSource } from './loop.ts';
+import { readSource } from './source-file.ts';
 
 /** The commands handled here. */
 export const RENDER_COMMANDS = ['chart', 'instructions', 'summary', 'plan'] as const;
