@@ -70,23 +70,38 @@ async function main(): Promise<number> {
       JWT_SECRET: process.env.JWT_SECRET ?? 'loopwright-test-secret-not-for-production',
     };
 
-    console.log('\n── typecheck: tsc --noEmit');
-    const tsc = await run(bin('tsc'), ['--noEmit', '-p', 'tsconfig.json'], env);
-    results.push({ name: 'typecheck', passed: tsc === 0 ? 1 : 0, failed: tsc === 0 ? 0 : 1 });
-
-    console.log('\n── lint: eslint .');
-    const lint = await run(bin('eslint'), ['.'], env);
-    results.push({ name: 'lint', passed: lint === 0 ? 1 : 0, failed: lint === 0 ? 0 : 1 });
-
-    results.push(await vitestSuite('shared', ['tests/shared', 'tests/reference'], env, false));
-    results.push(await vitestSuite('api', ['tests/api'], env, true));
-    results.push(await vitestSuite('e2e', ['tests/e2e'], env, true));
+    // `npm test -- tests/e2e/account.test.ts ...` runs only the named files
+    // (one at a time, against the private database) and skips the rest.
+    const only = process.argv.slice(2).filter((a) => !a.startsWith('-'));
+    if (only.length > 0) {
+      results.push(await vitestSuite('selected', only, env, true));
+    } else {
+      await runAll(results, env);
+    }
   } catch (err) {
     console.error('test run could not start:', err instanceof Error ? err.message : err);
     results.push({ name: 'setup', passed: 0, failed: 1 });
   } finally {
     await stopDb();
   }
+  return finish(results);
+}
+
+async function runAll(results: StepResult[], env: NodeJS.ProcessEnv): Promise<void> {
+  console.log('\n── typecheck: tsc --noEmit');
+  const tsc = await run(bin('tsc'), ['--noEmit', '-p', 'tsconfig.json'], env);
+  results.push({ name: 'typecheck', passed: tsc === 0 ? 1 : 0, failed: tsc === 0 ? 0 : 1 });
+
+  console.log('\n── lint: eslint .');
+  const lint = await run(bin('eslint'), ['.'], env);
+  results.push({ name: 'lint', passed: lint === 0 ? 1 : 0, failed: lint === 0 ? 0 : 1 });
+
+  results.push(await vitestSuite('shared', ['tests/shared', 'tests/reference'], env, false));
+  results.push(await vitestSuite('api', ['tests/api'], env, true));
+  results.push(await vitestSuite('e2e', ['tests/e2e'], env, true));
+}
+
+function finish(results: StepResult[]): number {
   console.log('\n── summary');
   for (const r of results) console.log(`  ${r.name.padEnd(10)} ${r.passed} passed, ${r.failed} failed`);
   const passed = results.reduce((a, r) => a + r.passed, 0);

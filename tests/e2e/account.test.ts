@@ -46,6 +46,10 @@ describe('account pages in Chromium', () => {
     await expect.poll(() => page.getByRole('alert').textContent()).toMatch(/\w+/);
 
     await page.getByRole('link', { name: 'Forgotten your password?' }).click();
+    // The reset page is loaded lazily and the sign-in page also has an
+    // E-mail field: wait for the new page before typing into it.
+    await page.waitForURL(/\/reset-password$/);
+    await page.getByRole('heading', { name: 'Reset your password' }).waitFor();
     await page.getByLabel('E-mail').fill(email);
     await page.getByRole('button', { name: 'Send reset link' }).click();
     await page.getByText('a reset link is on its way').waitFor();
