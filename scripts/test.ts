@@ -13,7 +13,7 @@ import path from 'node:path';
 import { startPrivateMariaDB, type PrivateMariaDB } from '../server/db/launcher.ts';
 
 const root = path.resolve(import.meta.dirname, '..');
-const reportDir = path.join(root, '.data', 'test-reports');
+const reportDir = path.join(root, '.data', `${process.env.LOOPWRIGHT_TEST_NAME ?? 'test'}-reports`);
 
 interface StepResult { name: string; passed: number; failed: number }
 
@@ -57,11 +57,14 @@ async function main(): Promise<number> {
   process.on('SIGTERM', () => { void stopDb().then(() => process.exit(143)); });
   try {
     console.log('── starting the private test database');
-    db = await startPrivateMariaDB({ name: 'test', port: Number(process.env.LOOPWRIGHT_TEST_DB_PORT ?? 3317) });
+    // LOOPWRIGHT_TEST_NAME / LOOPWRIGHT_TEST_DB_PORT let two runs share a machine (own directory, own port).
+    const name = process.env.LOOPWRIGHT_TEST_NAME ?? 'test';
+    if (!/^test[a-z0-9-]*$/.test(name)) throw new Error(`LOOPWRIGHT_TEST_NAME must start with "test" (got ${name})`);
+    db = await startPrivateMariaDB({ name, port: Number(process.env.LOOPWRIGHT_TEST_DB_PORT ?? 3317) });
     const env: NodeJS.ProcessEnv = {
       ...process.env,
       NODE_ENV: 'test',
-      LOOPWRIGHT_DATA_DIR: path.join(root, '.data', 'test'),
+      LOOPWRIGHT_DATA_DIR: path.join(root, '.data', name),
       DB_HOST: db.host,
       DB_PORT: String(db.port),
       DB_USER: db.user,
