@@ -16,6 +16,7 @@ import type { Outbox } from './fakes/smtp.ts';
 import type { Mailer } from './mail/mailer.ts';
 import { authenticate, checkOrigin } from './middleware/auth.ts';
 import { errorHandler } from './middleware/errors.ts';
+import { accountRoutes } from './routes/account.ts';
 import { adminRoutes } from './routes/admin.ts';
 import { authRoutes } from './routes/auth.ts';
 import { commentRoutes } from './routes/comments.ts';
@@ -128,6 +129,7 @@ export function createApp(opts: AppOptions): Express {
     register: limiter(limits.register ?? { windowMs: FIFTEEN_MINUTES, limit: 10 }),
     reset: limiter(limits.reset ?? { windowMs: FIFTEEN_MINUTES, limit: 10 }),
   }));
+  api.use(accountRoutes(ctx, limits.login));
   api.use(uploadRoutes(ctx));
   api.use(patternRoutes(ctx));
   api.use(memberRoutes(ctx));
