@@ -72,6 +72,7 @@ export function checkPattern(ast: PatternAst, only?: string, hadSyntaxErrors = f
   const sources = new SourceTable();
   sources.add(ast.castOn?.span ?? origin); // index 0: the cast-on (also used for stitches left unworked)
   const charts = prepareCharts(ast.charts, head, rep, sources);
+  sources.preassign(ast);
   if (!ast.castOn) rep.report('LW207', origin, {});
   if (head.yarns.length > 1 && !head.gauge) rep.report('LW503', ast.header.yarns[0]?.span ?? origin, {});
   if (only !== undefined && !head.sizes.includes(only)) {
