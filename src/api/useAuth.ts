@@ -63,6 +63,33 @@ export function useSignOut() {
   });
 }
 
+/** Change the display name; the header and every `me` reader show the new name at once. */
+export function useRename() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: { name: string }) => apiRequest<{ user: User }>('/me', { method: 'PATCH', body: input }),
+    onSuccess: (data) => {
+      qc.setQueryData(queryKeys.me, data.user);
+      // Author names in pattern lists, revisions and comments come from the server: fetch them again.
+      void qc.invalidateQueries({ queryKey: queryKeys.patterns });
+    },
+  });
+}
+
+/**
+ * Change the password with the current one. The server signs out every
+ * other session and sets a fresh cookie for this one, so `me` stays valid.
+ * A wrong current password fails with 403 `wrong-password`.
+ */
+export function useChangePassword() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: { currentPassword: string; newPassword: string }) =>
+      apiRequest<{ user: User; token: string }>('/me/password', { body: input }),
+    onSuccess: (data) => qc.setQueryData(queryKeys.me, data.user),
+  });
+}
+
 /** Ask for a reset link by e-mail. The server answers 202 whether or not the address is known. */
 export function useRequestPasswordReset() {
   return useMutation({

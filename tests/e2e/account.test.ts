@@ -1,7 +1,8 @@
 /**
  * Browser tests of the account pages in Chromium against the real app:
- * sign up, sign out, ask for a password reset, follow the mailed link from
- * the development outbox, choose a new password and sign in with it.
+ * sign up, change the display name on the account page (the top bar shows
+ * it at once), sign out, ask for a password reset, follow the mailed link
+ * from the development outbox, choose a new password and sign in with it.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { shot, startHarness, type Harness } from './harness.ts';
@@ -36,6 +37,12 @@ describe('account pages in Chromium', () => {
 
     await page.getByRole('link', { name: /Account settings/ }).click();
     await page.getByText(email).first().waitFor();
+    // A new display name shows in the top bar without a reload (the cached /api/me answer is replaced).
+    await page.getByLabel('Display name').fill('Wren Calloway Marsh');
+    await page.getByRole('button', { name: 'Save name' }).click();
+    await page.getByText('You now appear as Wren Calloway Marsh.').waitFor();
+    expect(await page.getByRole('link', { name: /Account settings/ }).textContent()).toContain('Wren Calloway Marsh');
+    await shot(page, '06b-account');
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in/);
 
@@ -75,7 +82,7 @@ describe('account pages in Chromium', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(/\/patterns$/);
     await page.getByRole('link', { name: /Account settings/ }).waitFor();
-    expect(await page.getByRole('link', { name: /Account settings/ }).textContent()).toContain('Wren Calloway');
+    expect(await page.getByRole('link', { name: /Account settings/ }).textContent()).toContain('Wren Calloway Marsh');
     await page.close();
   }, 120_000);
 });
