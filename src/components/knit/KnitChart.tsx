@@ -1,8 +1,12 @@
 /**
  * The chart of a release in one size with the knitter's current round
- * shaded and outlined; clicking a round makes it the current one.
+ * shaded and outlined; clicking a round makes it the current one. The chart
+ * is also a keyboard grid (components/chart/useChartGrid.ts): one tab stop,
+ * starting on the current round; Enter or Space makes the focused cell's
+ * round the current one.
  */
 import { useEffect, useRef } from 'react';
+import { useChartGrid } from '../chart/useChartGrid';
 import { centreWithin } from '../review/mark-cells';
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -36,12 +40,29 @@ export function KnitChart({ svg, current, word, onPick }: { svg: string | null; 
     if (box.current && mark) centreWithin(box.current, mark, false);
     return undo;
   }, [svg, current]);
+  const roundOf = (el: Element) => Number(el.closest('[data-round]')?.getAttribute('data-round') ?? NaN);
+  const lower = word.toLowerCase();
+  const { select } = useChartGrid(box, {
+    drawing: svg,
+    word,
+    startRound: current,
+    label: `Chart; the current ${lower}${current ? ` (${current})` : ''} is outlined`,
+    hint: `Enter: make this ${lower} the current one.`,
+    onActivate: (cell) => { const r = roundOf(cell); if (Number.isFinite(r)) onPick(r); },
+  });
   if (!svg) return null;
   return (
-    <div ref={box} className="lw-chart max-h-[32rem] overflow-auto bg-tide-50 p-3" data-testid="knit-chart"
-      onClick={(e) => { const r = Number((e.target as Element).closest?.('[data-round]')?.getAttribute('data-round') ?? NaN); if (Number.isFinite(r)) onPick(r); }}>
-      <div role="img" aria-label={`Chart; the current ${word.toLowerCase()}${current ? ` (${current})` : ''} is outlined. Click a ${word.toLowerCase()} to make it current.`}
-        className="inline-block rounded-stitch border border-tide-200 bg-white" dangerouslySetInnerHTML={{ __html: svg }} />
+    <div ref={box} className="lw-chart relative max-h-[32rem] overflow-auto bg-tide-50 p-3" data-testid="knit-chart"
+      onClick={(e) => {
+        const target = e.target as Element;
+        const r = roundOf(target);
+        if (!Number.isFinite(r)) return;
+        const cell = target.closest('g.row > *, g.backing');
+        if (cell) select(cell);
+        onPick(r);
+      }}>
+      <div className="inline-block rounded-stitch border border-tide-200 bg-white" dangerouslySetInnerHTML={{ __html: svg }} />
+      <p className="sr-only">Click a {lower}, or Tab into the chart and use the arrow keys and Enter, to make it current.</p>
     </div>
   );
 }

@@ -4,6 +4,8 @@
  * back (backing columns and floats), with a size switcher and zoom.
  * Clicking a stitch moves the editor to the text that made it; the
  * stitches made by the line under the editor's cursor are outlined.
+ * The chart is also a keyboard grid (components/chart/useChartGrid.ts): one
+ * tab stop, arrow keys between stitches, Enter or Space does what a click does.
  *
  * Reads the renderer's data attributes: stitch cells carry data-from/data-to
  * (source span) and data-stitch, row groups (and back-view cells) carry
@@ -11,6 +13,7 @@
  */
 import { memo, useEffect, useRef, useState, type MouseEvent } from 'react';
 import type { ChartMessage } from '../../editor/protocol';
+import { useChartGrid } from '../chart/useChartGrid';
 
 /** Cell sizes offered by zoom, in px. */
 export const ZOOM_STEPS = [6, 8, 10, 12, 16, 20, 24, 32] as const;
@@ -67,11 +70,26 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, yarns, settings
 
   const yarnByColour = new Map(yarns.map((y) => [y.colour.toLowerCase(), y]));
   const cellOf = (e: MouseEvent) => (e.target as Element).closest?.('[data-from], [data-stitch]') ?? null;
+  const jumpFrom = (cell: Element) => {
+    const from = Number(cell.getAttribute('data-from') ?? NaN);
+    const to = Number(cell.getAttribute('data-to') ?? NaN);
+    if (Number.isFinite(from)) onJump(from, Number.isFinite(to) ? to : from);
+  };
+  const sideWords = chart?.side === 'back' ? 'back of the work' : 'front';
+  const { select } = useChartGrid(box, {
+    drawing: chart?.svg ?? null,
+    word,
+    yarns,
+    label: `Chart of size ${chart?.size ?? size}, ${sideWords}`,
+    hint: 'Enter: go to the line that makes it.',
+    onActivate: jumpFrom,
+    onFocusCell: setHover,
+  });
   const onClick = (e: MouseEvent) => {
     const cell = cellOf(e);
-    const from = Number(cell?.getAttribute('data-from') ?? NaN);
-    const to = Number(cell?.getAttribute('data-to') ?? NaN);
-    if (cell && Number.isFinite(from)) onJump(from, Number.isFinite(to) ? to : from);
+    if (!cell) return;
+    select(cell);
+    jumpFrom(cell);
   };
   const onMove = (e: MouseEvent) => {
     const target = e.target as Element;
@@ -123,14 +141,13 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, yarns, settings
         {!chart ? (
           <p className="p-4 text-sm text-tide-600" role="status">Drawing the chart…</p>
         ) : chart.svg ? (
-          <div role="img" aria-label={`Chart of size ${chart.size}, ${chart.side === 'back' ? 'back of the work' : 'front'}. Click a stitch to go to its line.`}
-            className="inline-block rounded-stitch border border-tide-200 bg-white shadow-sm" dangerouslySetInnerHTML={{ __html: chart.svg }} />
+          <div className="inline-block rounded-stitch border border-tide-200 bg-white shadow-sm" dangerouslySetInnerHTML={{ __html: chart.svg }} />
         ) : (
           <p className="p-4 text-sm text-tide-700">{chart.problem}</p>
         )}
       </div>
       <div className="flex h-7 shrink-0 items-center border-t border-tide-200 px-4 text-caption text-tide-700" aria-live="off">
-        {hover ?? 'Point at a stitch to see what it is; click to go to its line.'}
+        {hover ?? 'Point at a stitch to see what it is; click to go to its line. Keyboard: Tab into the chart, then arrow keys and Enter.'}
       </div>
     </div>
   );
