@@ -118,6 +118,17 @@ export class ChartGrid {
     return row.querySelector(':scope > [data-stitch="1"]') ?? [...row.children].find(isStitchCell) ?? row.firstElementChild;
   }
 
+  /** Moves the tab stop to stitch 1 of `round` (when that round is drawn). */
+  startAt(round: number): void {
+    const cell = this.initialCell(null, round);
+    if (cell && roundOf(cell) === round) this.setActive(cell);
+  }
+
+  /** Renames the grid (e.g. when the knitter's current round changes). */
+  setLabel(label: string): void {
+    if (this.group?.getAttribute('role') === 'grid') this.group.setAttribute('aria-label', label);
+  }
+
   /** Roles on every row and cell and the navigation index; runs once (O(cells)). */
   prepare(): void {
     if (this.rows || !this.group) return;

@@ -15,7 +15,7 @@ import { ChartGrid, isGridKey, type ChartGridOptions, type GridSpot } from './ch
 export interface UseChartGridOptions extends ChartGridOptions {
   /** Changes whenever a new SVG is in the holder (e.g. the SVG string itself); null: nothing drawn. */
   drawing: string | null;
-  /** Round whose stitch 1 takes the first tab stop (default: the first round). */
+  /** Round whose stitch 1 takes the tab stop, now and whenever it changes while the grid is not focused (default: the first round). */
   startRound?: number | null;
   onActivate: (cell: Element) => void;
   onFocusCell?: (name: string | null) => void;
@@ -28,20 +28,33 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
   const focused = useRef(false);
   const latest = useRef(opts);
   useEffect(() => { latest.current = opts; });
-  const { drawing, word, label, hint, yarns, startRound = null } = opts;
+  const { drawing, word, label, hint, yarns } = opts;
 
   // A new drawing: a new grid, with the tab stop where it was (and the focus, if the grid had it).
+  // The grid's name and the start round are read when it is made, so changing them (the knitter's
+  // current round) does not rebuild the grid under the focused cell.
   useEffect(() => {
     const svg = holder.current?.querySelector('svg');
     grid.current = null;
     if (!svg || !drawing) return;
-    const g = new ChartGrid(svg, { word, label, hint, yarns });
+    const g = new ChartGrid(svg, { word, label: latest.current.label, hint, yarns });
     g.ringHost = holder.current;
-    if (!g.init(spot.current, startRound)) return;
+    if (!g.init(spot.current, latest.current.startRound ?? null)) return;
     grid.current = g;
     if (focused.current && g.activeCell && (!document.activeElement || document.activeElement === document.body)) g.focus(g.activeCell);
     return () => { spot.current = g.spot() ?? spot.current; g.release(); };
-  }, [holder, drawing, word, label, hint, yarns, startRound]);
+  }, [holder, drawing, word, hint, yarns]);
+
+  useEffect(() => { grid.current?.setLabel(label); }, [label, drawing]);
+
+  // A new start round (the knitter's current round moved on) takes the tab stop along, unless the keyboard is in the grid.
+  const { startRound = null } = opts;
+  useEffect(() => {
+    const g = grid.current;
+    if (!g || focused.current || startRound === null) return;
+    g.startAt(startRound);
+    spot.current = g.spot();
+  }, [startRound, drawing]);
 
   useEffect(() => {
     const el = holder.current;

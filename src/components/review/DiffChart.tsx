@@ -2,10 +2,12 @@
  * The new revision's chart of one size (drawn by shared/render in the
  * render worker) with the diff's changed cells outlined and changed rounds
  * flagged at both ends of the row. Clicking a row starts a comment on that
- * round.
+ * round; the chart is also a keyboard grid (components/chart/useChartGrid.ts)
+ * where Enter or Space on a cell does the same.
  */
 import { useEffect, useRef, useState, type KeyboardEvent, type MouseEvent } from 'react';
 import type { SizeDiff } from '../../../shared/diff/types';
+import { useChartGrid } from '../chart/useChartGrid';
 import { centreWithin, markCells } from './mark-cells';
 import { useRendered } from './useRendered';
 
@@ -39,7 +41,20 @@ export function DiffChart({ source, size, revision, onCommentRound, single = fal
   }, [svg, size]);
 
   const roundAt = (e: MouseEvent | KeyboardEvent) => Number((e.target as Element).closest?.('[data-round]')?.getAttribute('data-round') ?? NaN);
-  const onClick = (e: MouseEvent) => { const r = roundAt(e); if (Number.isFinite(r)) onCommentRound(r); };
+  const { select } = useChartGrid(box, {
+    drawing: svg,
+    word: Word,
+    label: `Chart of revision ${revision}, size ${size.size}`,
+    hint: `Enter: comment on this ${size.word}.`,
+    onActivate: (cell) => { const r = Number(cell.closest('[data-round]')?.getAttribute('data-round') ?? NaN); if (Number.isFinite(r)) onCommentRound(r); },
+  });
+  const onClick = (e: MouseEvent) => {
+    const r = roundAt(e);
+    if (!Number.isFinite(r)) return;
+    const cell = (e.target as Element).closest('g.row > *');
+    if (cell) select(cell);
+    onCommentRound(r);
+  };
 
   return (
     <div>
@@ -48,11 +63,11 @@ export function DiffChart({ source, size, revision, onCommentRound, single = fal
         {size.cellsTotal > size.cells.length && ` Showing ${size.cells.length} of ${size.cellsTotal} changed cells.`}
         {missed > 0 && ` ${missed} changed cell${missed === 1 ? '' : 's'} could not be placed on the chart.`}
       </p>
-      <div ref={box} className="lw-chart lw-diff-chart max-h-[28rem] overflow-auto bg-tide-50 p-3" onClick={onClick} data-testid="diff-chart">
+      <div ref={box} className="lw-chart lw-diff-chart relative max-h-[28rem] overflow-auto bg-tide-50 p-3" onClick={onClick} data-testid="diff-chart">
         {!answer || (pending && !svg) ? <p role="status" className="p-4 text-sm text-tide-600">Drawing the chart…</p>
           : svg ? (
-            <div role="img" aria-label={`Chart of revision ${revision}, size ${size.size}, with ${size.cellsTotal} changed cells marked. ${Word}s can be clicked to comment; the table of changed ${size.word}s has the same buttons.`}
-              className="inline-block rounded-stitch border border-tide-200 bg-white" dangerouslySetInnerHTML={{ __html: svg }} />
+            <div aria-label={`Chart of revision ${revision}, size ${size.size}, with ${size.cellsTotal} changed cells marked. ${Word}s can be clicked to comment; the table of changed ${size.word}s has the same buttons.`}
+              role="group" className="inline-block rounded-stitch border border-tide-200 bg-white" dangerouslySetInnerHTML={{ __html: svg }} />
           ) : <p className="p-4 text-sm text-tide-700">{answer.problem ?? 'No chart for this size.'}</p>}
       </div>
     </div>
