@@ -2,7 +2,7 @@
 import { Dialog } from '../Dialog';
 import { keyLabel, paneShortcuts, SHORTCUTS, type Shortcut } from './shortcuts';
 
-const groups: Shortcut['group'][] = ['Saving', 'Problems', 'Panes', 'Editing'];
+const groups: Shortcut['group'][] = ['Saving', 'Problems', 'Panes', 'Editing', 'Chart'];
 
 /** `panes`: labels of the workspace's panes in tab order (their Alt+digit keys are listed). */
 export function HelpOverlay({ open, onClose, panes }: { open: boolean; onClose: () => void; panes: readonly string[] }) {
