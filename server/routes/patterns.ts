@@ -3,7 +3,8 @@ import { Router } from 'express';
 import { changeStatusBody, createPatternBody, saveRevisionBody } from '../../shared/api-schemas.ts';
 import type { ServerContext } from '../context.ts';
 import { authorizeCreatePattern, requireUser } from '../services/access.ts';
-import { createPattern, getPattern, getRevision, listPatterns, listRevisions, saveRevision } from '../services/patterns.ts';
+import { readPattern, patternReadBody } from '../services/pattern-read.ts';
+import { createPattern, getRevision, listPatterns, listRevisions, saveRevision } from '../services/patterns.ts';
 import { changeStatusByTarget } from '../services/review.ts';
 import { intParam, parseBody } from './params.ts';
 
@@ -23,7 +24,8 @@ export function patternRoutes(ctx: ServerContext): Router {
   });
 
   r.get('/patterns/:id', async (req, res) => {
-    res.json(await getPattern(req.user, intParam(req.params.id)));
+    // The body is built as text: the stored summary goes in without a parse and re-serialise (pattern-read.ts).
+    res.type('json').send(patternReadBody(await readPattern(ctx.sequelize, req.user, intParam(req.params.id))));
   });
 
   r.post('/patterns/:id/revisions', async (req, res) => {

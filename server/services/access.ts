@@ -16,7 +16,7 @@
  * - Creating patterns needs the global `designer` role (or `admin`);
  *   managing accounts needs `admin`. Admins see no pattern they are not on.
  */
-import { Entitlement, Membership, Pattern, type User } from '../models/index.ts';
+import { Entitlement, Membership, Pattern, type MemberRole, type User } from '../models/index.ts';
 import { forbidden, notFound, unauthorized } from './errors.ts';
 
 export type PatternRole = 'owner' | 'editor' | 'test-knitter' | 'knitter';
@@ -94,7 +94,20 @@ export function newestVisibleRevision(role: PatternRole, pattern: Pick<Pattern, 
   return v === 'all' ? pattern.latestRevision : (v[0] ?? 0);
 }
 
-/** The caller's role on a pattern, or null. */
+/**
+ * The caller's role from what the database holds about them and the pattern:
+ * the owner is the owner; otherwise an invitation (membership) decides;
+ * otherwise an active entitlement (a purchase) makes a knitter; otherwise none.
+ * `membershipRole` is null without a membership. The one rule behind
+ * {@link roleOn} and the single-query read of a pattern (pattern-read.ts).
+ */
+export function roleFrom(userId: number, pattern: Pick<Pattern, 'ownerId'>, membershipRole: MemberRole | null, entitled: boolean): PatternRole | null {
+  if (pattern.ownerId === userId) return 'owner';
+  if (membershipRole) return membershipRole;
+  return entitled ? 'knitter' : null;
+}
+
+/** The caller's role on a pattern, or null (see {@link roleFrom}). */
 export async function roleOn(user: User, pattern: Pattern): Promise<PatternRole | null> {
   if (pattern.ownerId === user.id) return 'owner';
   const m = await Membership.findOne({ where: { patternId: pattern.id, userId: user.id } });
@@ -120,12 +133,26 @@ export async function entitledPatternIds(userId: number): Promise<number[]> {
  */
 export async function authorizePattern(user: User | null, patternId: number, action: PatternAction): Promise<{ pattern: Pattern; role: PatternRole }> {
   if (!user) throw unauthorized();
-  const pattern = Number.isSafeInteger(patternId) && patternId > 0 ? await Pattern.findByPk(patternId) : null;
+  const pattern = isPatternId(patternId) ? await Pattern.findByPk(patternId) : null;
   if (!pattern) throw notFound('Pattern');
-  const role = await roleOn(user, pattern);
+  return { pattern, role: enforceAccess(await roleOn(user, pattern), pattern, action) };
+}
+
+/** True when `patternId` can name a pattern (a positive safe integer); anything else is 404 without a query. */
+export function isPatternId(patternId: number): boolean {
+  return Number.isSafeInteger(patternId) && patternId > 0;
+}
+
+/**
+ * The decision of {@link authorizePattern} once the pattern and the caller's
+ * role are known: returns the role, or throws 404 when the role may not see
+ * the pattern (none, or a knitter before any release), 403 when it sees it
+ * but may not take `action`.
+ */
+export function enforceAccess(role: PatternRole | null, pattern: Pick<Pattern, 'releasedRevision'>, action: PatternAction): PatternRole {
   if (!canSee(role, pattern) || role === null) throw notFound('Pattern');
   if (!POLICY[action].includes(role)) throw forbidden(`As ${role === 'editor' ? 'an' : 'a'} ${role} on this pattern you may not do that.`);
-  return { pattern, role };
+  return role;
 }
 
 /** Throws unless `user` may create patterns (global designer or admin). */

@@ -23,8 +23,11 @@ export function checkSourceSize(source: string): void {
   }
 }
 
-/** The pattern as the caller with `role` sees it. */
-export function toApiPattern(pattern: Pattern, role: PatternRole, owner: User | undefined | null): ApiPattern {
+/** The columns of a pattern that {@link toApiPattern} reads. */
+export type PatternFields = Pick<Pattern, 'id' | 'title' | 'status' | 'latestRevision' | 'approvedRevision' | 'releasedRevision' | 'createdAt' | 'updatedAt'>;
+
+/** The pattern as the caller with `role` sees it (`owner`: at least id and name; missing shows as unknown). */
+export function toApiPattern(pattern: PatternFields, role: PatternRole, owner: Pick<User, 'id' | 'name'> | undefined | null): ApiPattern {
   return {
     id: pattern.id,
     title: pattern.title,
@@ -94,15 +97,6 @@ export async function listPatterns(user: User): Promise<ApiPatternListItem[]> {
       };
     })
     .sort((a, b) => b.updatedAt.localeCompare(a.updatedAt) || b.id - a.id);
-}
-
-/** One pattern and the newest revision the caller may read (with source and summary). */
-export async function getPattern(user: User | null, patternId: number): Promise<{ pattern: ApiPattern; latestRevision: ApiRevision | null }> {
-  const { pattern, role } = await authorizePattern(user, patternId, 'view');
-  const owner = await User.findByPk(pattern.ownerId);
-  const number = newestVisibleRevision(role, pattern);
-  const revision = await Revision.findOne({ where: { patternId: pattern.id, number }, include: [withAuthor] });
-  return { pattern: toApiPattern(pattern, role, owner), latestRevision: revision ? toApiRevision(revision, true) : null };
 }
 
 async function latestWithSource(patternId: number): Promise<ApiRevision | null> {

@@ -3,7 +3,7 @@ import type { ApiPerson, ApiRevision, ApiUser } from '../../shared/api-schemas.t
 import type { Revision, User } from '../models/index.ts';
 
 export const toApiUser = (u: User): ApiUser => ({ id: u.id, email: u.email, name: u.name, roles: [...u.roles] });
-export const toPerson = (u: User | undefined | null): ApiPerson => (u ? { id: u.id, name: u.name } : { id: 0, name: 'unknown' });
+export const toPerson = (u: Pick<User, 'id' | 'name'> | undefined | null): ApiPerson => (u ? { id: u.id, name: u.name } : { id: 0, name: 'unknown' });
 
 /** A revision; with `full` it includes `source` and `summary`. */
 export function toApiRevision(r: Revision, full: boolean): ApiRevision {
