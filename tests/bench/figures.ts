@@ -5,9 +5,49 @@
  * (the benchmark issue). A part that cannot run is reported with its error
  * and a null figure; the others still run.
  */
-import { measureApi, type ApiFigure } from './api.ts';
+import { formatApiFigure, measureApi, type ApiBenchOptions, type ApiFigure } from './api.ts';
 import { measureBundleFigures } from './bundles.ts';
 import { measureEdit, type EditFigure } from './edit.ts';
+
+/** The parts of `npm run bench` that `--only` can pick. */
+export const BENCH_PARTS = ['compile', 'edit', 'bundles', 'api'] as const;
+export type BenchPart = (typeof BENCH_PARTS)[number];
+
+/** What the command line asked for: the parts to measure and settings of the HTTP figure. */
+export interface BenchArgs { parts: Set<BenchPart>; api: Partial<ApiBenchOptions> }
+
+/**
+ * Reads `--only a,b` (or `--only=a,b`), `--api-rounds N` and `--api-seconds S`.
+ * Throws on an unknown flag or part, so a typo does not silently run everything.
+ */
+export function parseBenchArgs(argv: readonly string[]): BenchArgs {
+  const parts = new Set<BenchPart>(BENCH_PARTS);
+  const api: Partial<ApiBenchOptions> = {};
+  for (let i = 0; i < argv.length; i++) {
+    const [flag, inline] = argv[i].split(/=(.*)/s, 2);
+    const value = () => {
+      const v = inline ?? argv[++i];
+      if (v === undefined) throw new Error(`bench: ${flag} needs a value`);
+      return v;
+    };
+    const count = (v: string) => {
+      const n = Number(v);
+      if (!Number.isInteger(n) || n < 1) throw new Error(`bench: ${flag} needs a whole number of at least 1, not "${v}"`);
+      return n;
+    };
+    if (flag === '--only') {
+      parts.clear();
+      for (const p of value().split(',').map((x) => x.trim()).filter(Boolean)) {
+        if (!(BENCH_PARTS as readonly string[]).includes(p)) throw new Error(`bench: unknown part "${p}" (parts: ${BENCH_PARTS.join(', ')})`);
+        parts.add(p as BenchPart);
+      }
+      if (parts.size === 0) throw new Error(`bench: --only needs at least one of ${BENCH_PARTS.join(', ')}`);
+    } else if (flag === '--api-rounds') api.rounds = count(value());
+    else if (flag === '--api-seconds') api.seconds = count(value());
+    else throw new Error(`bench: unknown flag "${argv[i]}" (flags: --only ${BENCH_PARTS.join(',')}, --api-rounds N, --api-seconds S)`);
+  }
+  return { parts, api };
+}
 
 /** One headline figure: value (null when it could not be measured), goal (value <= goal), unit. */
 export interface Figure { name: string; value: number | null; goal: number; unit: string; error?: string }
@@ -21,12 +61,12 @@ export interface OtherFigures {
 const message = (err: unknown) => (err instanceof Error ? err.message : String(err));
 const round = (n: number, digits = 3) => Number(n.toFixed(digits));
 
-/** Measures the edit, bundle and API figures, one after the other. */
-export async function measureOtherFigures(): Promise<OtherFigures> {
+/** Measures the edit, bundle and API figures that `args` selects (default all), one after the other. */
+export async function measureOtherFigures(args: BenchArgs = { parts: new Set(BENCH_PARTS), api: {} }): Promise<OtherFigures> {
   const figures: Figure[] = [];
   const details: OtherFigures['details'] = { errors: {} };
 
-  try {
+  if (args.parts.has('edit')) try {
     // The headline edit changes a round's stitches; a note and a comment edit are shown beside it.
     const edits = (['instructions', 'note', 'comment'] as const).map((k) => measureEdit(k));
     details.edit = edits.map((e) => ({ ...e, fullMs: round(e.fullMs, 2), editMs: round(e.editMs, 2), ratio: round(e.ratio) }));
@@ -36,7 +76,7 @@ export async function measureOtherFigures(): Promise<OtherFigures> {
     figures.push({ name: 'editVsFull', value: null, goal: 0.1, unit: 'x', error: message(err) });
   }
 
-  try {
+  if (args.parts.has('bundles')) try {
     const { sizes, built } = measureBundleFigures();
     details.bundles = { ...sizes, builtNow: built };
     figures.push({ name: 'firstLoadKB', value: round(sizes.firstLoadGzip / 1024, 1), goal: 150, unit: 'KB' });
@@ -47,8 +87,9 @@ export async function measureOtherFigures(): Promise<OtherFigures> {
     figures.push({ name: 'workspaceKB', value: null, goal: 300, unit: 'KB', error: message(err) });
   }
 
-  try {
-    const api = await measureApi();
+  if (args.parts.has('api')) try {
+    const api = await measureApi(args.api);
+    console.log(formatApiFigure(api));
     details.api = { ...api, p99Ratio: round(api.p99Ratio) };
     figures.push({ name: 'apiP99VsHealth', value: round(api.p99Ratio), goal: 3, unit: 'x' });
   } catch (err) {

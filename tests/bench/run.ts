@@ -1,17 +1,25 @@
 /**
  * `npm run bench`: compile time against JSON.parse of the compiler's own
  * stitch-level result (every stitch with its operation, yarn and layer),
- * for generated patterns of about 10k, 100k and 1M stitches. Prints the
- * figures and writes .data/bench/latest.json with at least
+ * for generated patterns of about 10k, 100k and 1M stitches, then the edit,
+ * bundle and HTTP figures (figures.ts). Prints the figures and writes
+ * .data/bench/latest.json with at least
  * {"compileVsJsonParse": ratio at 100k, "growth10x": time(1M) / time(100k)}.
  * A benchmark, not a test: it never fails on speed.
+ *
+ * Flags (after `npm run bench --`):
+ * - `--only PARTS`: a comma-separated subset of `compile`, `edit`, `bundles`,
+ *   `api` (e.g. `--only api`). Only those are measured, and the result goes
+ *   to `.data/bench/latest-<parts>.json`, so latest.json keeps the last full run.
+ * - `--api-rounds N`, `--api-seconds S`: rounds of the HTTP figure and seconds
+ *   per route per round (defaults in api.ts, API_BENCH_DEFAULTS).
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { compile, type CompileResult } from '../../shared/index.ts';
 import { benchSource } from './generate.ts';
-import { formatFigureTable, measureOtherFigures, type Figure } from './figures.ts';
+import { BENCH_PARTS, formatFigureTable, measureOtherFigures, parseBenchArgs, type Figure } from './figures.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
 
@@ -46,67 +54,84 @@ function time(fn: () => unknown, runs: number, warm: number): { min: number; med
   return { min: t[0], median: t[Math.floor(t.length / 2)] };
 }
 
-const sizes = [10_000, 100_000, 1_000_000];
-const rows: {
-  target: number; stitches: number; sourceBytes: number; jsonBytes: number;
-  compileMs: number; jsonParseMs: number; ratio: number; compileMinMs: number; jsonParseMinMs: number; minRatio: number;
-}[] = [];
-for (const target of sizes) {
-  const source = benchSource(target);
-  const result = compile(source);
-  if (!result.ok) throw new Error(`bench pattern of ${target} has errors: ${result.diagnostics[0]?.message}`);
-  const json = stitchLevelJson(result);
-  const stitches = result.sizes[0].stitches.rounds.reduce((n, r) => n + r.count, 0);
-  // Warm up well first: the figures are for a compiler that has run before (as in the studio and the server).
-  const runs = target >= 1_000_000 ? 9 : 41;
-  const warm = target >= 1_000_000 ? 3 : 15;
-  const c = time(() => compile(source), runs, warm);
-  const j = time(() => JSON.parse(json), runs, warm);
-  rows.push({
-    target, stitches, sourceBytes: source.length, jsonBytes: json.length,
-    compileMs: c.median, jsonParseMs: j.median, ratio: c.median / j.median,
-    compileMinMs: c.min, jsonParseMinMs: j.min, minRatio: c.min / j.min,
-  });
+const args = parseBenchArgs(process.argv.slice(2));
+const onlySome = args.parts.size < BENCH_PARTS.length;
+const loadStart = os.loadavg()[0];
+
+/** The compile figures: timings at 10k, 100k and 1M stitches, printed as they are measured. */
+function measureCompileFigures() {
+  const sizes = [10_000, 100_000, 1_000_000];
+  const rows: {
+    target: number; stitches: number; sourceBytes: number; jsonBytes: number;
+    compileMs: number; jsonParseMs: number; ratio: number; compileMinMs: number; jsonParseMinMs: number; minRatio: number;
+  }[] = [];
+  for (const target of sizes) {
+    const source = benchSource(target);
+    const result = compile(source);
+    if (!result.ok) throw new Error(`bench pattern of ${target} has errors: ${result.diagnostics[0]?.message}`);
+    const json = stitchLevelJson(result);
+    const stitches = result.sizes[0].stitches.rounds.reduce((n, r) => n + r.count, 0);
+    // Warm up well first: the figures are for a compiler that has run before (as in the studio and the server).
+    const runs = target >= 1_000_000 ? 9 : 41;
+    const warm = target >= 1_000_000 ? 3 : 15;
+    const c = time(() => compile(source), runs, warm);
+    const j = time(() => JSON.parse(json), runs, warm);
+    rows.push({
+      target, stitches, sourceBytes: source.length, jsonBytes: json.length,
+      compileMs: c.median, jsonParseMs: j.median, ratio: c.median / j.median,
+      compileMinMs: c.min, jsonParseMinMs: j.min, minRatio: c.min / j.min,
+    });
+  }
+
+  for (const r of rows) {
+    console.log(
+      `${String(r.target).padStart(8)} target  ${String(r.stitches).padStart(8)} stitches  source ${r.sourceBytes} B  ` +
+        `compile ${r.compileMs.toFixed(2)} ms  JSON.parse ${r.jsonParseMs.toFixed(2)} ms (${(r.jsonBytes / 1e6).toFixed(2)} MB)  ratio ${r.ratio.toFixed(2)}  ` +
+        `(fastest ${r.compileMinMs.toFixed(2)} / ${r.jsonParseMinMs.toFixed(2)} ms, ratio ${r.minRatio.toFixed(2)})`,
+    );
+  }
+  const at100k = rows.find((r) => r.target === 100_000)!;
+  const at1m = rows.find((r) => r.target === 1_000_000)!;
+  const summary = {
+    compileVsJsonParse: Number(at100k.ratio.toFixed(3)),
+    growth10x: Number((at1m.compileMs / at100k.compileMs).toFixed(3)),
+    compileVsJsonParseFastest: Number(at100k.minRatio.toFixed(3)),
+    growth10xFastest: Number((at1m.compileMinMs / at100k.compileMinMs).toFixed(3)),
+    loadAverage: os.loadavg()[0],
+    rows,
+  };
+  console.log(`compileVsJsonParse ${summary.compileVsJsonParse} (goal <= 1.0), growth10x ${summary.growth10x} (goal <= 11)`);
+  return summary;
 }
 
-for (const r of rows) {
-  console.log(
-    `${String(r.target).padStart(8)} target  ${String(r.stitches).padStart(8)} stitches  source ${r.sourceBytes} B  ` +
-      `compile ${r.compileMs.toFixed(2)} ms  JSON.parse ${r.jsonParseMs.toFixed(2)} ms (${(r.jsonBytes / 1e6).toFixed(2)} MB)  ratio ${r.ratio.toFixed(2)}  ` +
-      `(fastest ${r.compileMinMs.toFixed(2)} / ${r.jsonParseMinMs.toFixed(2)} ms, ratio ${r.minRatio.toFixed(2)})`,
-  );
-}
-const at100k = rows.find((r) => r.target === 100_000)!;
-const at1m = rows.find((r) => r.target === 1_000_000)!;
-const summary = {
-  compileVsJsonParse: Number(at100k.ratio.toFixed(3)),
-  growth10x: Number((at1m.compileMs / at100k.compileMs).toFixed(3)),
-  compileVsJsonParseFastest: Number(at100k.minRatio.toFixed(3)),
-  growth10xFastest: Number((at1m.compileMinMs / at100k.compileMinMs).toFixed(3)),
-  loadAverage: os.loadavg()[0],
-  node: process.version,
-  measuredAt: new Date().toISOString(),
-  rows,
-};
-console.log(`compileVsJsonParse ${summary.compileVsJsonParse} (goal <= 1.0), growth10x ${summary.growth10x} (goal <= 11)`);
-// The other three figures (tests/bench/figures.ts), measured in the same run, then one table of all five.
-const other = await measureOtherFigures();
+const compiled = args.parts.has('compile') ? measureCompileFigures() : null;
+// The other figures (tests/bench/figures.ts), measured in the same run, then one table of all of them.
+const other = await measureOtherFigures(args);
 const figures: Figure[] = [
-  { name: 'compileVsJsonParse', value: summary.compileVsJsonParse, goal: 1.0, unit: 'x' },
-  { name: 'growth10x', value: summary.growth10x, goal: 11, unit: 'x' },
+  ...(compiled ? [
+    { name: 'compileVsJsonParse', value: compiled.compileVsJsonParse, goal: 1.0, unit: 'x' },
+    { name: 'growth10x', value: compiled.growth10x, goal: 11, unit: 'x' },
+  ] : []),
   ...other.figures,
 ];
 const loadAfter = os.loadavg()[0];
-console.log(`\n${formatFigureTable(figures)}\n(load average ${summary.loadAverage.toFixed(2)} after the compile figures, ${loadAfter.toFixed(2)} at the end, ${os.cpus().length} cores)`);
+const loadNote = compiled ? `${compiled.loadAverage.toFixed(2)} after the compile figures` : `${loadStart.toFixed(2)} at the start`;
+console.log(`\n${formatFigureTable(figures)}\n(load average ${loadNote}, ${loadAfter.toFixed(2)} at the end, ${os.cpus().length} cores)`);
 const all = {
-  ...summary,
+  ...(compiled ?? {}),
+  parts: [...args.parts],
+  node: process.version,
+  measuredAt: new Date().toISOString(),
   ...Object.fromEntries(other.figures.map((f) => [f.name, f.value])),
   goals: Object.fromEntries(figures.map((f) => [f.name, f.goal])),
   met: Object.fromEntries(figures.map((f) => [f.name, f.value !== null && f.value <= f.goal])),
+  loadAverageStart: loadStart,
   loadAverageEnd: loadAfter,
   details: other.details,
 };
 const dir = path.join(root, '.data', 'bench');
 mkdirSync(dir, { recursive: true });
-writeFileSync(path.join(dir, 'latest.json'), JSON.stringify(all, null, 2) + '\n');
+const file = onlySome ? `latest-${[...args.parts].join('-')}.json` : 'latest.json';
+writeFileSync(path.join(dir, file), JSON.stringify(all, null, 2) + '\n');
+console.log(`written to .data/bench/${file}`);
 if (Object.keys(other.details.errors).length) process.exitCode = 1;
