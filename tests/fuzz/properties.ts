@@ -9,7 +9,9 @@
  *  - give spans inside the source whose line/column agree with the offsets
  *    (lines end at \n, \r\n or \r, as CodeMirror counts them), for every
  *    diagnostic and every related span;
- *  - be deterministic: a second compile gives the same JSON;
+ *  - be deterministic: a second compile gives an equal result, compared
+ *    in full (every field of the CompileResult, the stitch-level typed
+ *    arrays of every size included; see `firstDifference`);
  *  - keep `ok` equal to "no error diagnostic".
  * The runner also times each compile (tests/fuzz/run.ts states the budget).
  */
@@ -90,7 +92,77 @@ export function spanProblem(source: string, starts: number[], s: Span): string |
   return null;
 }
 
-/** Everything a compile must agree on between two runs: the CLI JSON plus spans, hints and related places. */
+/**
+ * Where two values first differ, as a path such as
+ * `.sizes[0].stitches.store.op[17]`, or null when they are equal in full:
+ * same prototype, same own keys in the same order, equal values (by
+ * `Object.is`), arrays element by element, typed arrays byte by byte
+ * (memcmp through Buffer.compare, so a two-million-stitch model costs
+ * milliseconds). Shared or repeated objects are compared where they occur;
+ * nesting past 200 levels (only a cycle could do that) is reported.
+ *
+ * Used for the determinism property in place of comparing two JSON strings:
+ * stricter (JSON drops the stitch-level model, undefined fields and key
+ * order differences of nested objects are still caught here) and cheaper
+ * (no strings are built when the results agree).
+ */
+export function firstDifference(a: unknown, b: unknown): string | null {
+  const d = differ(a, b, 0);
+  return d === null ? null : d || '(root)';
+}
+
+/** The path below `a`/`b` where they first differ ('' for here), or null; paths are built only on a difference. */
+function differ(a: unknown, b: unknown, depth: number): string | null {
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return Object.is(a, b) ? null : '';
+  // Compile results are shallow trees (about six levels); this deep is a cycle.
+  if (depth > 200) return ' (nested more than 200 levels)';
+  const proto = Object.getPrototypeOf(a);
+  if (proto !== Object.getPrototypeOf(b)) return ' (different kinds of object)';
+  if (proto === Array.prototype) {
+    const x = a as unknown[], y = b as unknown[];
+    if (x.length !== y.length) return '.length';
+    for (let i = 0; i < x.length; i++) {
+      const u = x[i], v = y[i];
+      if (u === v) continue;
+      const d = differ(u, v, depth + 1);
+      if (d !== null) return `[${i}]${d}`;
+    }
+    return null;
+  }
+  if (ArrayBuffer.isView(a)) {
+    const v = b as ArrayBufferView;
+    if (a.byteLength !== v.byteLength) return '.length';
+    if (a.byteLength <= 256) {
+      // Short arrays: a loop is cheaper than making two Buffer views.
+      const x = new Uint8Array(a.buffer, a.byteOffset, a.byteLength), y = new Uint8Array(v.buffer, v.byteOffset, v.byteLength);
+      for (let i = 0; i < x.length; i++) if (x[i] !== y[i]) return `[byte ${i}]`;
+      return null;
+    }
+    const x = Buffer.from(a.buffer, a.byteOffset, a.byteLength), y = Buffer.from(v.buffer, v.byteOffset, v.byteLength);
+    if (x.equals(y)) return null;
+    let i = 0;
+    while (x[i] === y[i]) i++;
+    return `[byte ${i}]`;
+  }
+  if (a instanceof Map || a instanceof Set) {
+    const d = differ([...a.entries()], [...(b as Map<unknown, unknown> | Set<unknown>).entries()], depth + 1);
+    return d === null ? null : `.entries${d}`;
+  }
+  const x = a as Record<string, unknown>, y = b as Record<string, unknown>;
+  const ka = Object.keys(x), kb = Object.keys(y);
+  if (ka.length !== kb.length) return ` (keys ${ka.join(',')} vs ${kb.join(',')})`;
+  for (let i = 0; i < ka.length; i++) {
+    const k = ka[i];
+    if (k !== kb[i]) return ` (keys ${ka.join(',')} vs ${kb.join(',')})`;
+    const u = x[k], v = y[k];
+    if (u === v) continue;
+    const d = differ(u, v, depth + 1);
+    if (d !== null) return `.${k}${d}`;
+  }
+  return null;
+}
+
+/** Everything a compile must agree on between two runs: the CLI JSON plus spans, hints and related places (for messages; the property compares in full with `firstDifference`). */
 export function canonicalJson(r: CompileResult): string {
   return JSON.stringify({
     check: toCheckJson(r),
@@ -143,11 +215,13 @@ export function checkSource(source: string): CaseResult {
   if (first.ok !== !first.diagnostics.some((d) => d.severity === 'error')) {
     return result({ kind: 'ok-flag', message: `ok is ${first.ok} but the errors say otherwise` });
   }
-  const a = canonicalJson(first), b = canonicalJson(second);
-  if (a !== b) {
+  const where = firstDifference(first, second);
+  if (where !== null) {
+    const a = canonicalJson(first), b = canonicalJson(second);
     let i = 0;
     while (i < a.length && a[i] === b[i]) i++;
-    return result({ kind: 'determinism', message: `two compiles differ at JSON offset ${i}: ${a.slice(i, i + 80)} vs ${b.slice(i, i + 80)}` });
+    const shown = a === b ? 'the CLI JSON agrees' : `JSON offset ${i}: ${a.slice(i, i + 80)} vs ${b.slice(i, i + 80)}`;
+    return result({ kind: 'determinism', message: `two compiles differ at result${where} (${shown})` });
   }
   return result(null);
 }

@@ -10,7 +10,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compile } from '../../shared/index.ts';
 import { applyMutation, type Mutation } from '../fuzz/mutate.ts';
-import { assertSource, checkSource, fuzzCase, loadCorpus, spanProblem } from '../fuzz/properties.ts';
+import { assertSource, checkSource, firstDifference, fuzzCase, loadCorpus, spanProblem } from '../fuzz/properties.ts';
 
 const corpus = loadCorpus();
 
@@ -65,6 +65,19 @@ describe('the fuzz harness itself', () => {
     expect(spanProblem(src, starts, { from: 4, to: 6, line: 1, column: 5, endLine: 2, endColumn: 3 })).toMatch(/start/);
     expect(spanProblem(src, starts, { from: 4, to: 6, line: 2, column: 1, endLine: 2, endColumn: 4 })).toMatch(/end/);
     expect(spanProblem(src, starts, { from: 4, to: 99, line: 2, column: 1, endLine: 2, endColumn: 3 })).toMatch(/outside/);
+  });
+
+  it('the determinism comparison covers the whole result, the stitch-level model included (so a pass means something)', () => {
+    const source = 'yarn A "Harbour" #1d3557\ncast on 10\nrounds 1-3: k to end\n';
+    const a = compile(source), b = compile(source);
+    expect(firstDifference(a, b)).toBeNull();
+    b.sizes[0].stitches.store.op[12] ^= 1; // one stitch of round 1 worked differently: the CLI JSON would not show it
+    expect(firstDifference(a, b)).toBe('.sizes[0].stitches.store.op[byte 12]');
+    const c = compile(source);
+    c.diagnostics.push({ code: 'LW999', severity: 'info', span: c.sizes[0].rounds[0].span, message: 'an extra diagnostic' });
+    expect(firstDifference(a, c)).toBe('.diagnostics.length');
+    expect(firstDifference({ x: 1, y: undefined }, { x: 1 })).toMatch(/keys/);
+    expect(firstDifference([Number.NaN], [Number.NaN])).toBeNull();
   });
 
   it('checkSource reports the stitches of the model and a timing', () => {
