@@ -28,7 +28,9 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
   const focused = useRef(false);
   const latest = useRef(opts);
   useEffect(() => { latest.current = opts; });
-  const { drawing, word, label, hint, yarns } = opts;
+  const { drawing, word, label, hint } = opts;
+  // By content: a new compile hands over an equal list as a new array, which must not rebuild the grid.
+  const yarnKey = JSON.stringify(opts.yarns ?? null);
 
   // A new drawing: a new grid, with the tab stop where it was (and the focus, if the grid had it).
   // The grid's name and the start round are read when it is made, so changing them (the knitter's
@@ -37,13 +39,13 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
     const svg = holder.current?.querySelector('svg');
     grid.current = null;
     if (!svg || !drawing) return;
-    const g = new ChartGrid(svg, { word, label: latest.current.label, hint, yarns });
+    const g = new ChartGrid(svg, { word, label: latest.current.label, hint, yarns: latest.current.yarns });
     g.ringHost = holder.current;
     if (!g.init(spot.current, latest.current.startRound ?? null)) return;
     grid.current = g;
     if (focused.current && g.activeCell && (!document.activeElement || document.activeElement === document.body)) g.focus(g.activeCell);
     return () => { spot.current = g.spot() ?? spot.current; g.release(); };
-  }, [holder, drawing, word, hint, yarns]);
+  }, [holder, drawing, word, hint, yarnKey]);
 
   useEffect(() => { grid.current?.setLabel(label); }, [label, drawing]);
 
