@@ -35,18 +35,31 @@
 import type { CstElement, CstNode, IToken, TokenType } from 'chevrotain';
 import type { Diagnostic, Span } from './types';
 import { compile, type CompileOptions, type CompileResult } from './index';
-import { lexSource, tokenSpan, spanAt, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
+import { lexSource, lexer, tokenSpan, spanAt, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
 import { getParser, type ParseError } from './notation/parser';
-import { buildAst } from './notation/to-ast';
+import { buildAst, type RoundLineMemo } from './notation/to-ast';
+import type { Graded, NameRef, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { makeDiagnostic, sortDiagnostics } from './diagnostics';
-import { checkPattern, type CheckOutput } from './check';
+import { checkPatternTraced, ResumeMiss, type CheckOutput, type CheckTrace, type NodeMap, type SourceTable } from './check';
+
+/** What one incremental compile reused. */
+export interface IncrementalStats {
+  /** Statements in the source, and how many kept their parse from the previous source. */
+  pieces: number;
+  reusedPieces: number;
+  /** The whole check was the previous one. */
+  reusedCheck: boolean;
+  /** Rounds (over all sizes checked) taken from the previous check, and rounds worked. */
+  reusedRounds: number;
+  workedRounds: number;
+}
 
 /** A compiler that remembers its previous source. */
 export interface IncrementalCompiler {
   /** Same result as `compile(source, options)`; reuses what the previous call computed where safe. */
   compile(source: string, options?: CompileOptions): CompileResult;
   /** What the last call reused (for benchmarks and tests). */
-  readonly lastStats: { pieces: number; reusedPieces: number; reusedCheck: boolean };
+  readonly lastStats: IncrementalStats;
 }
 
 const byName = new Map<string, TokenType>(allTokens.map((t) => [t.name, t]));
@@ -77,7 +90,23 @@ function startsStatement(tokens: IToken[], i: number): boolean {
 }
 
 type Built = ReturnType<typeof buildAst>;
-interface PieceResult { cst: CstNode | null; errors: ParseError[]; offset: number; line: number }
+/**
+ * A parsed statement. `offset`/`line`: where it starts in the current source;
+ * `cstOffset`/`cstLine`: where its CST and errors think it starts (moved
+ * lazily, only when something reads them: see settle()).
+ */
+interface PieceResult {
+  cst: CstNode | null; errors: ParseError[]; offset: number; line: number; cstOffset: number; cstLine: number; kind: string; reused: boolean;
+  /** The cache key (start column, token kinds, text). */
+  key: string;
+  /** Offset just after its last token. */
+  end: number;
+  /** Its first token is the first on its line. */
+  firstOnLine: boolean;
+  /** Its tokens (as lexed when it was parsed; only their kinds are read again, for look-ahead). */
+  tokens: IToken[];
+}
+interface LineEntry { line: RoundLine; diagnostics: Diagnostic[] }
 
 const isToken = (e: CstElement): e is IToken => (e as IToken).image !== undefined;
 type Located = { startOffset: number; endOffset?: number; startLine?: number; endLine?: number };
@@ -96,19 +125,119 @@ function moveCst(n: CstNode, dOff: number, dLine: number, seen: Set<object>): vo
   }
 }
 
+/** Copies of round lines with their spans moved by (dOff, dLine); columns stay (see the module comment). */
+class LineMover {
+  constructor(private dOff: number, private dLine: number, private pairs: Map<object, object>) {}
+
+  span(s: Span): Span {
+    const n = { from: s.from + this.dOff, to: s.to + this.dOff, line: s.line + this.dLine, column: s.column, endLine: s.endLine + this.dLine, endColumn: s.endColumn };
+    this.pairs.set(s, n);
+    return n;
+  }
+  graded(g: Graded): Graded { return { values: g.values, span: this.span(g.span) }; }
+  gradedOrNull(g: Graded | null): Graded | null { return g ? this.graded(g) : null; }
+  name(n: NameRef): NameRef { return { name: n.name, span: this.span(n.span) }; }
+  nameOrNull(n: NameRef | null): NameRef | null { return n ? this.name(n) : null; }
+  to(t: ToSpec): ToSpec {
+    if (t.kind === 'last') return { kind: 'last', n: this.graded(t.n) };
+    if (t.kind === 'marker') return { kind: 'marker', name: this.nameOrNull(t.name) };
+    return t; // { kind: 'end' }: nothing to move
+  }
+  repeat(r: Repeat): Repeat {
+    if (r.kind === 'times') return { kind: 'times', n: this.graded(r.n) };
+    if (r.kind === 'once') return r;
+    return this.to(r);
+  }
+  op(o: Op): Op {
+    let n: Op;
+    switch (o.type) {
+      case 'stitch': n = { type: 'stitch', stitch: o.stitch, count: this.gradedOrNull(o.count), to: o.to ? this.to(o.to) : null, yarn: this.nameOrNull(o.yarn), span: this.span(o.span) }; break;
+      case 'group': n = { type: 'group', ops: o.ops.map((x) => this.op(x)), repeat: this.repeat(o.repeat), yarn: this.nameOrNull(o.yarn), span: this.span(o.span) }; break;
+      case 'chart': n = { type: 'chart', chart: this.name(o.chart), row: this.gradedOrNull(o.row), once: o.once, span: this.span(o.span) }; break;
+      case 'mark': case 'unmark': n = { type: o.type, name: this.name(o.name), span: this.span(o.span) }; break;
+      case 'catch': case 'raise': n = { type: o.type, yarn: this.name(o.yarn), span: this.span(o.span) }; break;
+      case 'carry': n = { type: 'carry', count: this.gradedOrNull(o.count), span: this.span(o.span) }; break;
+      case 'close': n = { type: 'close', how: o.how, span: this.span(o.span) }; break;
+      case 'cable': n = { type: 'cable', held: o.held, worked: o.worked, dir: o.dir, yarn: this.nameOrNull(o.yarn), span: this.span(o.span) }; break;
+    }
+    this.pairs.set(o, n);
+    return n;
+  }
+  line(l: RoundLine): RoundLine {
+    const n: RoundLine = {
+      index: l.index, word: l.word, first: this.graded(l.first), last: this.gradedOrNull(l.last), every: l.every,
+      segment: this.nameOrNull(l.segment), yarn: this.nameOrNull(l.yarn), ops: l.ops.map((o) => this.op(o)),
+      note: l.note, span: this.span(l.span), headSpan: this.span(l.headSpan),
+    };
+    this.pairs.set(l, n);
+    return n;
+  }
+  diagnostic(d: Diagnostic): Diagnostic {
+    const mv = (s: Span): Span => ({ ...s, from: s.from + this.dOff, to: s.to + this.dOff, line: s.line + this.dLine, endLine: s.endLine + this.dLine });
+    return { ...d, span: mv(d.span), ...(d.related ? { related: d.related.map((r) => ({ ...r, span: mv(r.span) })) } : {}) };
+  }
+}
+
+/** Pairs the objects of two equal AST values (old -> new); false when their shapes differ. */
+function pairWalk(a: unknown, b: unknown, pairs: Map<object, object>): boolean {
+  if (a === b) return true;
+  if (a === null || b === null || typeof a !== 'object' || typeof b !== 'object') return a === b || (Number.isNaN(a) && Number.isNaN(b));
+  if (Array.isArray(a) !== Array.isArray(b)) return false;
+  pairs.set(a, b);
+  if (Array.isArray(a)) {
+    const bb = b as unknown[];
+    if (a.length !== bb.length) return false;
+    for (let i = 0; i < a.length; i++) if (!pairWalk(a[i], bb[i], pairs)) return false;
+    return true;
+  }
+  const ka = Object.keys(a), kb = Object.keys(b);
+  if (ka.length !== kb.length) return false;
+  for (const k of ka) if (!pairWalk((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k], pairs)) return false;
+  return true;
+}
+
+/** Adds every object reachable from v (except stitch definitions) to `into`. */
+function collect(v: unknown, into: Set<object>): void {
+  if (v === null || typeof v !== 'object' || into.has(v)) return;
+  into.add(v);
+  if (Array.isArray(v)) { for (const x of v) collect(x, into); return; }
+  for (const [k, x] of Object.entries(v)) if (k !== 'stitch') collect(x, into);
+}
+
+/** The statement kind of a piece's CST ('roundLine', 'yarnLine', ...; '' when unreadable). */
+const kindOf = (cst: CstNode | null): string => (cst ? Object.keys(cst.children)[0] ?? '' : '');
+
+interface Previous {
+  order: PieceResult[];
+  built: Built;
+  ast: PatternAst;
+  size: string | undefined;
+  hadSyntax: boolean;
+  checked: CheckOutput;
+  trace: CheckTrace;
+}
+
 /** Creates an incremental compiler (see the module comment for what it reuses). */
 export function createIncrementalCompiler(): IncrementalCompiler {
   let pieces = new Map<string, PieceResult>();
-  // The previous source's pieces in order, what buildAst made of them, and the check of that AST.
-  let previous: { order: PieceResult[]; built: Built; size: string | undefined; hadSyntax: boolean; checked: CheckOutput } | null = null;
-  const stats = { pieces: 0, reusedPieces: 0, reusedCheck: false };
+  // Round lines built from the previous source's statements, by CST.
+  let lines = new Map<CstNode, LineEntry>();
+  let previous: Previous | null = null;
+  const stats: IncrementalStats = { pieces: 0, reusedPieces: 0, reusedCheck: false, reusedRounds: 0, workedRounds: 0 };
   // CSTs handed out in the current compile (each at most once, since moving one changes it in place).
   let taken = new Set<object>();
+  // Objects of the previous AST -> their copies in this compile's AST (moved or renumbered round lines, the other statements).
+  let pairs = new Map<object, object>();
+  // Moved copies of round lines -> the previous AST's line (a renumbered copy pairs with the latter).
+  let lineOrigin = new Map<RoundLine, RoundLine>();
+  // The previous source and how it was cut (for cutAround).
+  let lastCut: (Cut & { source: string }) | null = null;
 
-  function parsePiece(source: string, piece: IToken[], next: Map<string, PieceResult>): PieceResult {
+  function parsePiece(source: string, piece: IToken[], next: Map<string, PieceResult>, firstOnLine: boolean): PieceResult {
     const first = piece[0];
     const last = piece[piece.length - 1];
-    const key = `${first.startColumn}\u0000${piece.map((t) => t.tokenType.name).join(',')}\u0000${source.slice(first.startOffset, (last.endOffset ?? last.startOffset) + 1)}`;
+    const end = (last.endOffset ?? last.startOffset) + 1;
+    const key = `${first.startColumn}\u0000${piece.map((t) => t.tokenType.name).join(',')}\u0000${source.slice(first.startOffset, end)}`;
     const line = first.startLine ?? 1;
     stats.pieces++;
     const found = pieces.get(key) ?? next.get(key);
@@ -117,15 +246,13 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       taken.add(cached.cst ?? cached);
       stats.reusedPieces++;
       const dOff = first.startOffset - cached.offset, dLine = line - cached.line;
-      if (dOff === 0 && dLine === 0) { next.set(key, cached); return cached; }
-      // Moved: shift its positions in place. Safe because nothing outside the cache keeps the
-      // CST or its tokens (the AST and diagnostics copy positions into fresh spans), and a
-      // piece is taken from the cache at most once per compile (see taken). The wrapper is
-      // new, so an AST built from the old positions is never taken for the new ones.
-      const seen = new Set<object>();
-      if (cached.cst) moveCst(cached.cst, dOff, dLine, seen);
-      for (const e of cached.errors) { move(e.token, dOff, dLine, seen); if (e.previous) move(e.previous, dOff, dLine, seen); }
-      const moved: PieceResult = { cst: cached.cst, errors: cached.errors, offset: first.startOffset, line };
+      if (dOff === 0 && dLine === 0) {
+        const same: PieceResult = cached.reused && cached.firstOnLine === firstOnLine ? cached : { ...cached, reused: true, firstOnLine };
+        next.set(key, same);
+        return same;
+      }
+      const moved = movePiece(cached, dOff, dLine);
+      moved.firstOnLine = firstOnLine;
       next.set(key, moved);
       return moved;
     }
@@ -133,37 +260,170 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     parser.input = piece;
     const cst = parser.statement();
     const errors = parser.errors.map((e) => ({ message: e.message, token: e.token, previous: (e as { previousToken?: IToken }).previousToken }));
-    const made: PieceResult = { cst: cst ?? null, errors, offset: first.startOffset, line };
+    const made: PieceResult = {
+      cst: cst ?? null, errors, offset: first.startOffset, line, cstOffset: first.startOffset, cstLine: line, kind: kindOf(cst ?? null), reused: false,
+      key, end, firstOnLine, tokens: piece,
+    };
     taken.add(made.cst ?? made);
     next.set(key, made);
     return made;
   }
 
-  /** parseSource (shared/notation/index.ts) with the per-piece cache. */
-  function parse(source: string): { ast: PatternAst; diagnostics: Diagnostic[]; order: PieceResult[]; built: Built; sameAst: boolean } {
-    const lexed = lexSource(source);
-    const diagnostics: Diagnostic[] = lexed.diagnostics;
+  /** A reused piece at a new place: its round line moves now, its CST when read (settle()). */
+  function movePiece(cached: PieceResult, dOff: number, dLine: number): PieceResult {
+    // Its round line: a copy with moved spans (the old one may still be in use by the previous result).
+    const entry = cached.cst ? lines.get(cached.cst) : undefined;
+    if (entry && cached.cst) {
+      const mover = new LineMover(dOff, dLine, pairs);
+      const copy = mover.line(entry.line);
+      lineOrigin.set(copy, entry.line);
+      lines.set(cached.cst, { line: copy, diagnostics: entry.diagnostics.map((d) => mover.diagnostic(d)) });
+    }
+    return { ...cached, offset: cached.offset + dOff, line: cached.line + dLine, end: cached.end + dOff, reused: true };
+  }
 
-    // parseTokens (parser.ts), piece by piece through the cache.
+  /**
+   * Brings a piece's CST and errors to where the piece now is. Moving in
+   * place is safe because nothing outside the cache keeps the CST or its
+   * tokens (the AST and diagnostics copy positions into fresh spans), and a
+   * piece is taken from the cache at most once per compile (see taken).
+   */
+  function settle(r: PieceResult): void {
+    const dOff = r.offset - r.cstOffset, dLine = r.line - r.cstLine;
+    if (dOff === 0 && dLine === 0) return;
+    const seen = new Set<object>();
+    if (r.cst) moveCst(r.cst, dOff, dLine, seen);
+    for (const e of r.errors) { move(e.token, dOff, dLine, seen); if (e.previous) move(e.previous, dOff, dLine, seen); }
+    r.cstOffset = r.offset; r.cstLine = r.line;
+  }
+
+  /** The pieces of a source with their parse, the lexer's diagnostics and the comments. */
+  interface Cut { order: PieceResult[]; lexDiagnostics: Diagnostic[]; comments: Span[]; stopped: boolean }
+
+  /** Lexes the whole source and cuts it as the parser does (parser.ts parseTokens), piece by piece through the cache. */
+  function cutAll(source: string, next: Map<string, PieceResult>): Cut {
+    const lexed = lexSource(source);
     const tokens = lexed.tokens;
     const maxErrors = MAX_SYNTAX_DIAGNOSTICS * 4;
-    const next = new Map<string, PieceResult>();
-    const csts: CstNode[] = [];
     const order: PieceResult[] = [];
-    const errors: ParseError[] = [];
+    let errors = 0;
     let stopped = false;
     let start = 0;
     for (let i = 1; i <= tokens.length; i++) {
       if (i < tokens.length && !startsStatement(tokens, i)) continue;
       const piece = tokens.slice(start, i);
+      const firstOnLine = start === 0 || (tokens[start - 1].endLine ?? 0) < (tokens[start].startLine ?? 0);
       start = i;
-      const r = parsePiece(source, piece, next);
+      const r = parsePiece(source, piece, next, firstOnLine);
       order.push(r);
-      errors.push(...r.errors);
-      if (r.cst) csts.push(r.cst);
-      if (errors.length > maxErrors) { stopped = i < tokens.length; break; }
+      errors += r.errors.length;
+      if (errors > maxErrors) { stopped = i < tokens.length; break; }
     }
+    return { order, lexDiagnostics: lexed.diagnostics, comments: (lexed.groups.comments ?? []).map(tokenSpan), stopped };
+  }
+
+  /**
+   * The same as cutAll, lexing only around the edit: the previous source's
+   * pieces before the first changed character and after the last one are
+   * kept (those after it moved by the change in length), and the text
+   * between whole lines around the edit is lexed and cut again. Returns null
+   * when the shortcut does not apply (no previous source, line ends other
+   * than \n, characters the lexer cannot read, many syntax errors, or the
+   * edit reaches the ends); cutAll then does the whole text.
+   */
+  function cutAround(source: string, next: Map<string, PieceResult>): Cut | null {
+    const prev = lastCut;
+    if (!prev || prev.stopped || prev.lexDiagnostics.length || prev.order.length < 3 || source.includes('\r')) return null;
+    const old = prev.source, pieces = prev.order;
+    const max = Math.min(old.length, source.length);
+    let p = 0;
+    while (p < max && old.charCodeAt(p) === source.charCodeAt(p)) p++;
+    let q = 0;
+    while (q < max - p && old.charCodeAt(old.length - 1 - q) === source.charCodeAt(source.length - 1 - q)) q++;
+    const delta = source.length - old.length, oldEditEnd = old.length - q;
+    // First kept piece after the edit: starts a line, and the line break before it is unchanged.
+    let b = 0;
+    while (b < pieces.length && pieces[b].offset - 1 < oldEditEnd) b++;
+    while (b < pieces.length && !pieces[b].firstOnLine) b++;
+    // Last kept piece before the edit: one piece of margin, and the region starts a line.
+    let a = 0;
+    while (a < pieces.length && pieces[a].end <= p) a++;
+    a = Math.min(a, pieces.length - 1) - 1;
+    while (a > 0 && !pieces[a].firstOnLine) a--;
+    if (a < 1 || b <= a) return null;
+    const from = old.lastIndexOf('\n', pieces[a].offset - 1) + 1; // a line start, before the edit
+    if (from > p) return null;
+    const toOld = b < pieces.length ? pieces[b].offset : old.length;
+    const toNew = toOld + delta;
+    if (toNew < from || toNew < source.length - q) return null;
+    const lexed = lexer.tokenize(source.slice(from, toNew));
+    if (lexed.errors.length) return null;
+    const baseLine = pieces[a].line - 1;
+    const fix = (t: IToken): IToken => {
+      t.startOffset += from;
+      if (t.endOffset !== undefined) t.endOffset += from;
+      if (t.startLine !== undefined) t.startLine += baseLine;
+      if (t.endLine !== undefined) t.endLine += baseLine;
+      return t;
+    };
+    const tokens = lexed.tokens.map(fix);
+    if (tokens.length === 0) return null;
+    let breaksNew = 0, breaksOld = 0;
+    for (let i = source.indexOf('\n', from); i >= 0 && i < toNew; i = source.indexOf('\n', i + 1)) breaksNew++;
+    for (let i = old.indexOf('\n', from); i >= 0 && i < toOld; i = old.indexOf('\n', i + 1)) breaksOld++;
+    const dLine = breaksNew - breaksOld;
+
+    // Kept pieces are taken first, so the middle cannot take them by their text.
+    for (let i = 0; i < a; i++) taken.add(pieces[i].cst ?? pieces[i]);
+    for (let i = b; i < pieces.length; i++) taken.add(pieces[i].cst ?? pieces[i]);
+    const order: PieceResult[] = [];
+    const keep = (r: PieceResult): PieceResult => (r.reused ? r : { ...r, reused: true });
+    for (let i = 0; i < a; i++) { const r = keep(pieces[i]); order.push(r); next.set(r.key, r); stats.pieces++; stats.reusedPieces++; }
+    // Cut the middle as the parser would; look-ahead may read the first tokens after it.
+    const ahead = b < pieces.length ? tokens.concat(pieces[b].tokens.slice(0, 8)) : tokens;
+    let start = 0;
+    for (let i = 1; i <= tokens.length; i++) {
+      if (i < tokens.length && !startsStatement(ahead, i)) continue;
+      const firstOnLine = start === 0 || (tokens[start - 1].endLine ?? 0) < (tokens[start].startLine ?? 0);
+      order.push(parsePiece(source, tokens.slice(start, i), next, firstOnLine));
+      start = i;
+    }
+    let errors = 0;
+    for (const r of order) errors += r.errors.length;
+    for (let i = b; i < pieces.length; i++) errors += pieces[i].errors.length;
+    // Past the cap the parser stops reading (cutAll); the caches were touched, so start over.
+    if (errors > MAX_SYNTAX_DIAGNOSTICS * 4) throw new Error('too many syntax errors for the shortcut');
+    for (let i = b; i < pieces.length; i++) {
+      const r = delta === 0 && dLine === 0 ? keep(pieces[i]) : movePiece(pieces[i], delta, dLine);
+      order.push(r); next.set(r.key, r); stats.pieces++; stats.reusedPieces++;
+    }
+    const comments: Span[] = [];
+    for (const c of prev.comments) if (c.to <= from) comments.push(c); else break;
+    for (const t of lexed.groups.comments ?? []) comments.push(tokenSpan(fix(t)));
+    for (const c of prev.comments) {
+      if (c.from >= toOld) comments.push(delta === 0 && dLine === 0 ? c : { ...c, from: c.from + delta, to: c.to + delta, line: c.line + dLine, endLine: c.endLine + dLine });
+    }
+    return { order, lexDiagnostics: [], comments, stopped: false };
+  }
+
+  /** parseSource (shared/notation/index.ts) with the per-piece cache. */
+  function parse(source: string): { ast: PatternAst; diagnostics: Diagnostic[]; order: PieceResult[]; built: Built; sameAst: boolean } {
+    const next = new Map<string, PieceResult>();
+    // cutAround returns null before it touches anything; past that point it throws,
+    // and compile() forgets every cache and compiles afresh.
+    const cut = cutAround(source, next) ?? cutAll(source, next);
     pieces = next;
+    lastCut = { ...cut, source };
+    const { order, stopped } = cut;
+    const diagnostics: Diagnostic[] = [...cut.lexDiagnostics];
+    const csts: CstNode[] = [];
+    const errors: ParseError[] = [];
+    for (const r of order) {
+      // Round lines with a built line in the cache never read their CST; everything else does.
+      if (r.errors.length || r.kind !== 'roundLine' || !r.cst || !lines.has(r.cst)) settle(r);
+      if (r.errors.length) errors.push(...r.errors);
+      if (r.cst) csts.push(r.cst);
+    }
 
     let parseCount = 0;
     for (const e of errors) {
@@ -179,34 +439,98 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: Math.max(0, parseCount - MAX_SYNTAX_DIAGNOSTICS), code: stopped ? 'LW102; reading stopped' : 'LW102' }));
     }
     const prev = previous?.order;
-    const sameAst = !!prev && prev.length === order.length && order.every((r, i) => r === prev[i]);
-    const built = sameAst ? previous!.built : buildAst(csts);
-    const ast = { ...built.ast, comments: (lexed.groups.comments ?? []).map(tokenSpan) };
+    const sameAst = !!prev && prev.length === order.length && order.every((r, i) => r.cst === prev[i].cst && r.offset === prev[i].offset && r.line === prev[i].line && r.errors === prev[i].errors);
+    let built: Built;
+    if (sameAst) built = previous!.built;
+    else {
+      const nextLines = new Map<CstNode, LineEntry>();
+      const memo: RoundLineMemo = {
+        get(cst) { const e = lines.get(cst); if (e) nextLines.set(cst, e); return e; },
+        set(cst, line, diags) { nextLines.set(cst, { line, diagnostics: diags }); },
+        reindex(line, index) {
+          const copy: RoundLine = { ...line, index };
+          pairs.set(lineOrigin.get(line) ?? line, copy);
+          return copy;
+        },
+      };
+      built = buildAst(csts, memo);
+      lines = nextLines;
+    }
+    const ast = { ...built.ast, comments: cut.comments };
     return { ast, diagnostics: [...diagnostics, ...built.diagnostics], order, built, sameAst };
+  }
+
+  /**
+   * How the previous compile's objects map to this one's, or null when the
+   * previous check cannot be resumed: any statement other than a round line
+   * changed (header, cast-on, charts and ladders shape every round).
+   */
+  function prepare(prev: Previous, order: PieceResult[], ast: PatternAst, sources: SourceTable): ReturnType<Parameters<typeof checkPatternTraced>[3]['prepare']> {
+    const others = (o: PieceResult[]) => o.filter((r) => r.kind !== 'roundLine');
+    const now = others(order), then = others(prev.order);
+    if (now.length !== then.length || now.some((r, i) => !r.reused || r.kind !== then[i].kind)) return null;
+    const p = prev.ast;
+    if (!pairWalk(p.header, ast.header, pairs) || !pairWalk(p.castOn, ast.castOn, pairs) || !pairWalk(p.charts, ast.charts, pairs) || !pairWalk(p.ladders, ast.ladders, pairs)) return null;
+    // Round lines of the previous AST that are not in this one (the edited ones) are gone.
+    const kept = new Set<object>(ast.rounds);
+    const dead = new Set<object>();
+    for (const l of p.rounds) if (!kept.has(l) && !pairs.has(l)) collect(l, dead);
+    const node = <T extends object>(old: T): T | null => {
+      const n = pairs.get(old);
+      if (n) return n as T;
+      return dead.has(old) ? null : old;
+    };
+    const oldSources = prev.trace.sources;
+    const srcMap = new Int32Array(oldSources.spans.length);
+    for (let i = 0; i < srcMap.length; i++) {
+      const n = oldSources.nodes[i];
+      if (n === null) { srcMap[i] = sources.nodes[i] === null && i < sources.nodes.length ? i : -1; continue; }
+      const m = node(n);
+      srcMap[i] = (m && sources.indexOf(m)) ?? -1;
+    }
+    const map: NodeMap = { node, srcMap };
+    const firstLineSame = p.rounds.length === 0 ? ast.rounds.length === 0 : node(p.rounds[0]) === (ast.rounds[0] ?? null);
+    return { map, firstLineSame, traces: prev.trace.sizes };
   }
 
   return {
     get lastStats() { return { ...stats }; },
     compile(source: string, options: CompileOptions = {}): CompileResult {
-      stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false;
+      stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false; stats.reusedRounds = 0; stats.workedRounds = 0;
       taken = new Set();
+      pairs = new Map();
+      lineOrigin = new Map();
       let parsed: ReturnType<typeof parse>;
       try {
         parsed = parse(source);
       } catch {
         // Anything unexpected in the cache path: forget it and compile afresh.
-        pieces = new Map(); previous = null;
+        pieces = new Map(); lines = new Map(); previous = null; lastCut = null;
         return compile(source, options);
       }
       const hadSyntax = parsed.diagnostics.some((d) => d.code === 'LW101' || d.code === 'LW102');
       let checked: CheckOutput;
-      if (previous && parsed.sameAst && previous.size === options.size && previous.hadSyntax === hadSyntax) {
-        checked = previous.checked;
+      let trace: CheckTrace;
+      const prev = previous;
+      if (prev && parsed.sameAst && prev.size === options.size && prev.hadSyntax === hadSyntax) {
+        checked = prev.checked;
+        trace = prev.trace;
         stats.reusedCheck = true;
       } else {
-        checked = checkPattern(parsed.ast, options.size, hadSyntax);
+        const canResume = prev !== null && prev.size === options.size && prev.hadSyntax === hadSyntax;
+        let out;
+        try {
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: (sources) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources) : null) });
+        } catch (e) {
+          if (!(e instanceof ResumeMiss)) throw e;
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null });
+        }
+        checked = out;
+        trace = out.trace;
+        stats.reusedRounds = out.reusedRounds;
+        stats.workedRounds = out.workedRounds;
       }
-      previous = { order: parsed.order, built: parsed.built, size: options.size, hadSyntax, checked };
+      previous = { order: parsed.order, built: parsed.built, ast: parsed.ast, size: options.size, hadSyntax, checked, trace };
       const diagnostics = sortDiagnostics([...parsed.diagnostics, ...checked.diagnostics]);
       return { ok: !diagnostics.some((d) => d.severity === 'error'), header: checked.header, diagnostics, sizes: checked.sizes };
     },

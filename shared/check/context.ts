@@ -20,6 +20,9 @@ export const LIMITS = {
   perCode: 50,
 } as const;
 
+/** One call of Reporter.report, as made. */
+export interface ReportCall { code: string; span: Span; facts: Facts; size: string | undefined; key: string; related: { span: Span; message: string }[] | undefined }
+
 /** Per-compile sink: dedupes by code+place (+size), caps per code. */
 export class Reporter {
   readonly list: Diagnostic[] = [];
@@ -27,8 +30,15 @@ export class Reporter {
   private counts = new Map<string, number>();
   private dropped = new Map<string, { count: number; span: Span }>();
 
+  /** Calls of `report`, suppressed ones included. */
+  calls = 0;
+  /** When set, every call of `report` is appended here as made (the incremental compiler replays them). */
+  trace: ReportCall[] | null = null;
+
   /** Reports once per (code, place, size, key); returns false when suppressed. */
   report(code: string, span: Span, facts: Facts, size?: string, key = '', related?: { span: Span; message: string }[]): boolean {
+    this.calls++;
+    this.trace?.push({ code, span, facts, size, key, related });
     const id = `${code}@${span.from}-${span.to}/${size ?? ''}/${key}`;
     if (this.seen.has(id)) return false;
     this.seen.add(id);

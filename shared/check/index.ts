@@ -16,8 +16,11 @@ import { planRounds } from './plan';
 import { workRounds, type RoundRecord } from './round';
 import { checkBackingClosed, formatRounds } from './backing';
 import type { StitchStore } from './store';
+import type { NodeMap, SizeTrace } from './resume';
 
 export { FLAG, StitchStore } from './store';
+export { SourceTable } from './sources';
+export { ResumeMiss, type NodeMap, type SizeTrace } from './resume';
 export { LIMITS } from './context';
 export { ONE_SIZE, DEFAULT_YARN } from './header';
 export { formatRounds } from './backing';
@@ -59,11 +62,40 @@ export interface CheckOutput {
 
 const origin: Span = { from: 0, to: 0, line: 1, column: 1, endLine: 1, endColumn: 1 };
 
+/** What a check leaves for the incremental compiler: the source table and each size's trace (resume.ts). */
+export interface CheckTrace { sources: SourceTable; sizes: Map<string, SizeTrace> }
+
+/** How the incremental compiler asks a check to record and to resume (shared/incremental.ts). */
+export interface CheckIncremental {
+  /**
+   * Called once the new source table is numbered; returns how the earlier
+   * compile's objects map to this one's and its traces, or null to work
+   * every round.
+   */
+  prepare(sources: SourceTable): { map: NodeMap; firstLineSame: boolean; traces: Map<string, SizeTrace> } | null;
+}
+
+/** CheckOutput plus what the incremental compiler needs. */
+export interface TracedCheckOutput extends CheckOutput { trace: CheckTrace; reusedRounds: number; workedRounds: number }
+
 /**
  * Checks a parsed pattern; `only` restricts the work to one size (LW208 when
  * it does not exist); `hadSyntaxErrors` quiets LW209. Never throws on user input.
  */
 export function checkPattern(ast: PatternAst, only?: string, hadSyntaxErrors = false): CheckOutput {
+  return check(ast, only, hadSyntaxErrors, null);
+}
+
+/**
+ * checkPattern for the incremental compiler: records each size's rounds and
+ * resumes from `incremental.prepare`'s traces where it can. Throws
+ * ResumeMiss when a trace cannot be used (the caller then checks afresh).
+ */
+export function checkPatternTraced(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boolean, incremental: CheckIncremental): TracedCheckOutput {
+  return check(ast, only, hadSyntaxErrors, incremental) as TracedCheckOutput;
+}
+
+function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boolean, incremental: CheckIncremental | null): CheckOutput | TracedCheckOutput {
   const rep = new Reporter();
   const early: Diagnostic[] = [];
   const head = resolveHeader(ast.header, early, origin);
@@ -73,11 +105,18 @@ export function checkPattern(ast: PatternAst, only?: string, hadSyntaxErrors = f
   sources.add(ast.castOn?.span ?? origin); // index 0: the cast-on (also used for stitches left unworked)
   const charts = prepareCharts(ast.charts, head, rep, sources);
   sources.preassign(ast);
+  const prepared = incremental?.prepare(sources) ?? null;
+  const traces = new Map<string, SizeTrace>();
+  // Records the incremental compiler carries over keep their summaries too.
+  const summaries = incremental ? summaryCache : null;
+  const yarnsKey = head.yarns.join('\u0000');
+  let reusedRounds = 0, workedRounds = 0;
   if (!ast.castOn) rep.report('LW207', origin, {});
   if (head.yarns.length > 1 && !head.gauge) rep.report('LW503', ast.header.yarns[0]?.span ?? origin, {});
   if (only !== undefined && !head.sizes.includes(only)) {
     rep.report('LW208', ast.header.sizesSpan ?? origin, { name: only, known: head.sizes.join(' ') });
-    return { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes: [] };
+    const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes: [] };
+    return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds } : out;
   }
   const sizes: SizeModel[] = [];
   head.sizes.forEach((size, sizeIndex) => {
@@ -89,18 +128,39 @@ export function checkPattern(ast: PatternAst, only?: string, hadSyntaxErrors = f
     const planned = planRounds(ctx, ast, flat, hadSyntaxErrors);
     let records: RoundRecord[] = [];
     if (castOnCount < 0) ctx.report('LW103', ast.castOn!.count.span, { what: 'a cast-on', need: '0 or more stitches', value: castOnCount });
-    if (planned) records = workRounds(m, ast, planned.rounds, planned.ranges, { count: Math.max(0, castOnCount), yarn: castOnYarn, src: 0 }, flat);
+    if (planned) {
+      const old = prepared?.traces.get(size);
+      const worked = workRounds(m, ast, planned.rounds, planned.ranges, { count: Math.max(0, castOnCount), yarn: castOnYarn, src: 0 }, flat, {
+        record: incremental !== null,
+        resume: old && prepared ? { trace: old, map: prepared.map, firstLineSame: prepared.firstLineSame } : undefined,
+      });
+      records = worked.records;
+      if (worked.trace) traces.set(size, worked.trace);
+      reusedRounds += worked.stats.reusedRounds;
+      workedRounds += worked.stats.workedRounds;
+    }
     checkBackingClosed(m, records[records.length - 1]);
     reportFloats(ctx, records, m.word, m.store, sources.spans);
     m.store.trim();
     sizes.push({
       name: size,
       castOn: Math.max(0, castOnCount),
-      rounds: records.map((r) => summarize(r, head.yarns)),
+      rounds: records.map((r) => (summaries ? summarizeCached(r, head.yarns, yarnsKey, summaries) : summarize(r, head.yarns))),
       stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns },
     });
   });
-  return { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };
+  const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };
+  return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds } : out;
+}
+
+const summaryCache = new WeakMap<RoundRecord, { yarns: string; summary: RoundSummary }>();
+
+function summarizeCached(r: RoundRecord, yarns: string[], yarnsKey: string, cache: typeof summaryCache): RoundSummary {
+  const hit = cache.get(r);
+  if (hit && hit.yarns === yarnsKey) return hit.summary;
+  const summary = summarize(r, yarns);
+  cache.set(r, { yarns: yarnsKey, summary });
+  return summary;
 }
 
 function summarize(r: RoundRecord, yarns: string[]): RoundSummary {

@@ -26,6 +26,11 @@ export interface SegmentRange { name: string; from: number; to: number }
  * across the start of the round or the edges stays within n), then every n.
  */
 export interface LadderRun { ladder: LadderLine; phase: 'setup' | 'work' | 'close'; every: number; columns: Set<number>; count: number; src: number; yarn: number }
+/** A change to the machine's memory of closings, merges and reported columns (see Machine.trace). */
+export type MachineEvent =
+  | { kind: 'closed'; key: string; round: number; span: Span }
+  | { kind: 'merged'; key: string }
+  | { kind: 'reported'; col: number };
 /** A backing column set up somewhere in the pattern. */
 export interface ColumnInfo { yarn: number; src: number; round: number }
 
@@ -89,6 +94,28 @@ export class Machine {
   /** Line context for chart rows and messages. */
   lineFirst = 1;
   lineSpan: Span | null = null;
+
+  /**
+   * When set, every change to `closed`, `merged` and `reportedColumns` is
+   * appended here in order (the incremental compiler replays them; see
+   * resume.ts). Changes go through the note* methods below.
+   */
+  trace: MachineEvent[] | null = null;
+
+  noteClosed(key: string, at: { round: number; span: Span }): void {
+    this.closed.set(key, at);
+    this.trace?.push({ kind: 'closed', key, round: at.round, span: at.span });
+  }
+
+  noteMerged(key: string): void {
+    this.merged.add(key);
+    this.trace?.push({ kind: 'merged', key });
+  }
+
+  noteReportedColumn(col: number): void {
+    this.reportedColumns.add(col);
+    this.trace?.push({ kind: 'reported', col });
+  }
 
   constructor(
     readonly ctx: SizeContext,
@@ -227,7 +254,7 @@ export class Machine {
       if ((f & FLAG.BACKING) === 0) return i;
       if (f & FLAG.MANAGED) { this.autoBacking(i); continue; }
       this.problem = true;
-      this.merged.add(`${this.side}:${this.front}`);
+      this.noteMerged(`${this.side}:${this.front}`);
       this.ctx.report('LW401', this.sources.spans[src], { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] });
       return i;
     }
@@ -247,7 +274,7 @@ export class Machine {
     const i = this.pendingClose;
     this.pendingClose = -1;
     const span = this.lineSpan ?? this.sources.spans[0];
-    this.reportedColumns.add(this.inCol[i]);
+    this.noteReportedColumn(this.inCol[i]);
     this.ctx.report('LW403', span, { word: this.word, round: this.roundNo, detail: 'a ladder column has no front stitch after it to close with' }, `u${this.inCol[i]}`);
     this.putBacking(OP.carry, this.inYarn[i], this.ladder?.src ?? 0, this.inFlags[i], this.inCol[i]);
   }
@@ -266,7 +293,7 @@ export class Machine {
     const s = this.store;
     if (this.pendingClose >= 0) {
       op = this.ladder?.ladder.close === 'ssk' ? OP.closeSsk : OP.closeK2tog;
-      this.closed.set(`${this.side}:${this.front}`, { round: this.roundNo, span: this.ladder?.ladder.span ?? this.sources.spans[src] });
+      this.noteClosed(`${this.side}:${this.front}`, { round: this.roundNo, span: this.ladder?.ladder.span ?? this.sources.spans[src] });
       this.pendingClose = -1;
     }
     if (s.length >= s.op.length) s.reserve(1);

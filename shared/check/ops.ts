@@ -330,7 +330,7 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
     m.missing += 1;
     m.problem = true;
     if (backA) {
-      m.reportedColumns.add(m.inCol[a]);
+      m.noteReportedColumn(m.inCol[a]);
       m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'the backing stitch is the last stitch here, with no front neighbour to close with' });
       m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
     } else {
@@ -342,8 +342,8 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
   }
   m.pos = b + 1;
   if (backA && backB) {
-    m.reportedColumns.add(m.inCol[a]);
-    m.reportedColumns.add(m.inCol[b]);
+    m.noteReportedColumn(m.inCol[a]);
+    m.noteReportedColumn(m.inCol[b]);
     m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'two backing stitches side by side: close needs a front stitch as neighbour' });
     m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
     m.putBacking(OP.carry, m.inYarn[b], src, fb, m.inCol[b]);
@@ -363,6 +363,6 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
     m.putFront(how === 'ssk' ? OP.closeSsk : OP.closeK2tog, yarn, src, 0);
     return;
   }
-  m.closed.set(key, { round: m.roundNo, span });
+  m.noteClosed(key, { round: m.roundNo, span });
   m.putFront(how === 'ssk' ? OP.closeSsk : OP.closeK2tog, yarn, src, 0);
 }

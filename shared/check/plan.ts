@@ -18,11 +18,14 @@ export interface PlannedRound {
   side: 'RS' | 'WS';
   /** The whole-round line, or null for a segment round (or a missing round). */
   whole: RoundLine | null;
-  /** Segment lines by segment name (empty map for a whole round). */
-  segments: Map<string, RoundLine>;
+  /** Segment lines by segment name (an empty, shared map for a whole round). */
+  segments: ReadonlyMap<string, RoundLine>;
   /** Ladders active on this round and their phase. */
   ladders: { ladder: LadderLine; phase: 'setup' | 'work' | 'close'; first: number }[];
 }
+
+/** The segments of a round with none (shared; never changed). */
+const NO_SEGMENTS: ReadonlyMap<string, RoundLine> = new Map();
 
 /** A resolved range of a line for this size. */
 export interface LineRange { first: number; last: number; step: number }
@@ -58,7 +61,8 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
     return null;
   }
   const whole = new Int32Array(max + 1).fill(-1);
-  const segs: Map<string, RoundLine>[] = Array.from({ length: max + 1 }, () => new Map());
+  // Segment lines per round, made only for rounds that have some (most rounds of most patterns have none).
+  const segs: (Map<string, RoundLine> | undefined)[] = new Array(max + 1);
   for (const line of ast.rounds) {
     const r = ranges.get(line);
     if (!r) continue;
@@ -66,7 +70,7 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       ctx.reporter.report('LW213', line.headSpan, { construction: flat ? 'flat' : 'in the round', word: line.word, expected: flat ? 'row/rows' : 'round/rounds' });
     }
     for (let n = r.first; n <= r.last; n += r.step) {
-      if (line.segment) segs[n].set(line.segment.name, line);
+      if (line.segment) (segs[n] ??= new Map()).set(line.segment.name, line);
       else whole[n] = line.index;
     }
   }
@@ -74,16 +78,17 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
   for (let n = 1; n <= max; n++) {
     const side = flat && n % 2 === 0 ? 'WS' : 'RS';
     const w = whole[n] >= 0 ? ast.rounds[whole[n]] : null;
-    if (w && segs[n].size) {
+    const here = segs[n];
+    if (w && here) {
       // The whole-round line is worked; the segment lines are ignored for this round.
-      const [segName, segLine] = [...segs[n]][0];
+      const [segName, segLine] = [...here][0];
       ctx.reporter.report('LW211', segLine.headSpan, { word: wordOf, round: n, segment: segName }, ctx.sizeLabel, String(n));
     }
-    if (!w && segs[n].size === 0 && !quietGaps) {
+    if (!w && !here && !quietGaps) {
       const near = ast.rounds.find((l) => (ranges.get(l)?.first ?? 0) > n) ?? ast.rounds[ast.rounds.length - 1];
       ctx.report('LW209', near.headSpan, { word: wordOf, round: n, last: max }, String(n));
     }
-    rounds.push({ number: n, side, whole: w, segments: w ? new Map() : segs[n], ladders: [] });
+    rounds.push({ number: n, side, whole: w, segments: w || !here ? NO_SEGMENTS : here, ladders: [] });
   }
   for (const ladder of ast.ladders) {
     const first = ctx.graded(ladder.first);

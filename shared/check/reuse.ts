@@ -22,13 +22,17 @@ function chartFree(ops: readonly Op[], charts: Map<string, PreparedChart>): bool
   return true;
 }
 
-const cache = new WeakMap<RoundLine, boolean>();
+// Whether a line is chart-free depends on the charts too (a chart's row count), and lines
+// outlive a check (the incremental compiler reuses them): one cache per charts map.
+const caches = new WeakMap<Map<string, PreparedChart>, WeakMap<RoundLine, boolean>>();
 
 /** A key naming what works a round, or null when the round may differ from an identical-looking one. */
 export function roundKey(p: PlannedRound, charts: Map<string, PreparedChart>): string | null {
   if (p.ladders.some((l) => l.phase !== 'work')) return null;
   const lines = p.whole ? [p.whole] : [...p.segments.values()];
   if (lines.length === 0) return null;
+  let cache = caches.get(charts);
+  if (!cache) { cache = new WeakMap(); caches.set(charts, cache); }
   for (const l of lines) {
     let free = cache.get(l);
     if (free === undefined) { free = chartFree(l.ops, charts); cache.set(l, free); }

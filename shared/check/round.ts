@@ -13,6 +13,12 @@ import { leftNeedleAsFound, roundKey } from './reuse';
 import { measureFloats, type FloatRun } from './floats';
 import { FLAG } from './store';
 import type { PlannedRound, LineRange } from './plan';
+import type { ReportCall } from './context';
+import type { MachineEvent } from './machine';
+import {
+  changedRounds, copyColumns, copyStitches, mapRecord, replayEvents, replayReports, ResumeMiss, sameState,
+  type Checkpoint, type ResumeFrom, type SizeTrace,
+} from './resume';
 
 /** One worked round as the model keeps it. */
 export interface RoundRecord {
@@ -57,32 +63,133 @@ function segmentsOf(rsMarkers: readonly MarkerPos[], len: number, ws: boolean): 
   return segs.map((s) => ({ name: s.name, from: len - s.to, to: len - s.from })).reverse();
 }
 
-/** Works all rounds; returns their records (fewer than planned if the size hit a bound). */
+/** Options of workRounds for the incremental compiler (see resume.ts). */
+export interface WorkRoundsOptions {
+  /** Record the fold into a trace (returned as `trace`). */
+  record?: boolean;
+  /** Take what it can from an earlier compile's trace. */
+  resume?: ResumeFrom;
+}
+
+/** What workRounds did, for the incremental compiler. */
+export interface WorkRoundsStats { reusedRounds: number; workedRounds: number }
+
+/**
+ * Works all rounds; returns their records (fewer than planned if the size
+ * hit a bound), and with `record` the trace a later compile can resume from.
+ */
 export function workRounds(
   m: Machine, ast: PatternAst, plan: PlannedRound[], ranges: Map<RoundLine, LineRange>,
-  castOn: { count: number; yarn: number; src: number }, flat: boolean,
-): RoundRecord[] {
+  castOn: { count: number; yarn: number; src: number }, flat: boolean, options: WorkRoundsOptions = {},
+): { records: RoundRecord[]; trace: SizeTrace | null; stats: WorkRoundsStats } {
   const records: RoundRecord[] = [];
   const { ctx, store } = m;
-  // The cast-on is stored first, as the needle before round 1 (not a round).
-  m.room(castOn.count, m.sources.spans[castOn.src]);
-  // Room for every round at the cast-on width (plus a little for shaping and backing), to grow rarely.
-  m.store.reserve(Math.min(castOn.count * (plan.length + 1) * 1.1 + 1024, LIMITS.stitchesPerSize * 1.05) | 0);
-  if (m.aborted) return records;
-  for (let i = 0; i < castOn.count; i++) {
-    const k = store.length++;
-    store.op[k] = OP.co; store.yarn[k] = castOn.yarn; store.flags[k] = 0; store.src[k] = castOn.src; store.col[k] = -1;
+  const stats: WorkRoundsStats = { reusedRounds: 0, workedRounds: 0 };
+  const resume = options.resume && !options.resume.trace.aborted ? options.resume : undefined;
+  const recording = options.record === true || resume !== undefined;
+  const reports: ReportCall[] = [];
+  const events: MachineEvent[] = [];
+  const checkpoints: Checkpoint[] = [];
+  // repeats[i]: plan[i] has the reuse.ts key of plan[i - 1] (a round that may share the previous round's stitches).
+  const repeats: boolean[] = [];
+  const previousReportTrace = ctx.reporter.trace;
+  if (recording) { ctx.reporter.trace = reports; m.trace = events; }
+  const done = (): { records: RoundRecord[]; trace: SizeTrace | null; stats: WorkRoundsStats } => {
+    if (recording) { ctx.reporter.trace = previousReportTrace; m.trace = null; }
+    // The end-of-size checks read the word; rounds taken from a trace did not set it.
+    if (records.length) m.word = flat ? 'row' : 'round';
+    const trace = recording ? { plan, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted } : null;
+    return { records, trace, stats };
+  };
+  const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));
+
+  // The rounds before the first changed one come from the trace (resume.ts).
+  let start = 0;
+  let changedLast = -1;
+  let prefixLen = castOn.count;
+  if (resume) {
+    const changed = changedRounds(resume.trace.plan, plan, resume.map, resume.firstLineSame);
+    changedLast = changed.last;
+    if (changed.first > 0 && changed.first < resume.trace.checkpoints.length) start = changed.first;
   }
+  // Room for every round at the cast-on width (plus a little for shaping and backing), to grow rarely.
+  const expected = Math.min(castOn.count * (plan.length + 1) * 1.1 + 1024, LIMITS.stitchesPerSize * 1.05) | 0;
   let prevOff = 0, prevLen = castOn.count, prevMarkers: MarkerPos[] = [], prevSide: 'RS' | 'WS' = flat ? 'WS' : 'RS';
-  const yarnCount = ctx.head.yarns.length;
-  const defaultYarn = castOn.yarn;
   let prevKey: string | null = null;
   let prevStable = false;
+  let lastKey: string | null = null; // the key of the plan entry before the current one
+  if (start > 0) {
+    const t = resume!.trace, map = resume!.map, cp = t.checkpoints[start];
+    m.store.reserve(expected);
+    copyStitches(store, t.store, 0, cp.storeLen, map.srcMap);
+    copyColumns(m, t.columns, 0, cp.columns, map);
+    replayEvents(m, t.events, 0, cp.events, map);
+    replayReports(m, t.reports, 0, cp.reports, map);
+    for (let i = 0; i < start; i++) {
+      records.push(mapRecord(t.records[i], map, null));
+      checkpoints.push(t.checkpoints[i]);
+      repeats.push(t.repeats[i]);
+    }
+    m.logical = cp.logical; m.steps = cp.steps;
+    prevOff = cp.prevOff; prevLen = cp.prevLen; prevMarkers = cp.prevMarkers; prevStable = cp.prevStable;
+    prevKey = keyOf(start - 1);
+    lastKey = prevKey;
+    prefixLen = cp.storeLen;
+    stats.reusedRounds += start;
+  } else {
+    // The cast-on is stored first, as the needle before round 1 (not a round).
+    m.room(castOn.count, m.sources.spans[castOn.src]);
+    m.store.reserve(expected);
+    if (m.aborted) return done();
+    for (let i = 0; i < castOn.count; i++) {
+      const k = store.length++;
+      store.op[k] = OP.co; store.yarn[k] = castOn.yarn; store.flags[k] = 0; store.src[k] = castOn.src; store.col[k] = -1;
+    }
+  }
+  const yarnCount = ctx.head.yarns.length;
+  const defaultYarn = castOn.yarn;
+  const checkpoint = (): Checkpoint => ({
+    storeLen: store.length, events: events.length, reports: reports.length, columns: m.columns.length,
+    logical: m.logical, steps: m.steps, prevOff, prevLen, prevMarkers, prevStable,
+  });
 
-  for (const p of plan) {
+  for (let pi = start; pi < plan.length; pi++) {
+    const p = plan[pi];
     if (m.aborted) break;
+    const key = keyOf(pi);
+    repeats[pi] = key !== null && key === lastKey;
+    lastKey = key;
+    if (resume && pi > changedLast && sameState(m, { prevOff, prevLen, prevMarkers, prevStable, repeats }, pi, resume)) {
+      // Back in the state the earlier compile had here: the rest is the same (resume.ts).
+      const t = resume.trace, map = resume.map, cp = t.checkpoints[pi];
+      const d = store.length - cp.storeLen, dEvents = events.length - cp.events, dReports = reports.length - cp.reports;
+      const newPrevOff = prevOff;
+      const offset = (o: number): number => {
+        if (o >= cp.storeLen) return o + d;
+        if (o === cp.prevOff) return newPrevOff;
+        if (o < prefixLen) return o;
+        throw new ResumeMiss('a round shares stitches that were worked again');
+      };
+      copyStitches(store, t.store, cp.storeLen, t.store.length, map.srcMap);
+      copyColumns(m, t.columns, cp.columns, t.columns.length, map);
+      replayEvents(m, t.events, cp.events, t.events.length, map);
+      replayReports(m, t.reports, cp.reports, t.reports.length, map);
+      for (let i = pi; i < t.records.length; i++) records.push(mapRecord(t.records[i], map, offset));
+      for (let i = pi; i < t.checkpoints.length; i++) {
+        const c = t.checkpoints[i];
+        const po = offset(c.prevOff);
+        checkpoints[i] = d === 0 && dEvents === 0 && dReports === 0 && po === c.prevOff ? c
+          : { ...c, storeLen: c.storeLen + d, events: c.events + dEvents, reports: c.reports + dReports, prevOff: po };
+        if (i > pi && i < plan.length) repeats[i] = t.repeats[i];
+      }
+      const last = t.checkpoints[t.checkpoints.length - 1];
+      m.logical = last.logical; m.steps = last.steps;
+      stats.reusedRounds += t.records.length - pi;
+      return done();
+    }
+    if (recording) checkpoints[pi] = checkpoint();
+    stats.workedRounds++;
     m.logical += prevLen;
-    const key = flat ? null : roundKey(p, m.charts);
     if (key !== null && key === prevKey && prevStable) {
       // Same instructions on an unchanged needle: the same round again (see reuse.ts).
       if (m.logical + prevLen > LIMITS.stitchesPerSize) {
@@ -92,7 +199,7 @@ export function workRounds(
       records.push({ ...records[records.length - 1], number: p.number, side: p.side });
       continue;
     }
-    const reported = ctx.reporter.list.length;
+    const reported = ctx.reporter.calls;
     const ws = p.side === 'WS';
     let flags = store.flags.subarray(prevOff, prevOff + prevLen);
     let yarn = store.yarn.subarray(prevOff, prevOff + prevLen);
@@ -168,11 +275,12 @@ export function workRounds(
       markers: m.markersOut, segments: segs, floats, lines, span, note,
     });
     prevKey = key;
-    prevStable = key !== null && !m.aborted && ctx.reporter.list.length === reported && leftNeedleAsFound(m, markers, offset, count);
+    prevStable = key !== null && !m.aborted && ctx.reporter.calls === reported && leftNeedleAsFound(m, markers, offset, count);
     prevOff = offset; prevLen = count; prevMarkers = m.markersOut; prevSide = p.side;
   }
   void prevSide;
-  return records;
+  if (recording && !m.aborted) checkpoints[records.length] = checkpoint();
+  return done();
 }
 
 /** Works one line over the current scope with its yarn. */

@@ -27,19 +27,22 @@ export class SourceTable {
     return this.spans.length - 1;
   }
 
-  /** Numbers the ladder lines, then each round line followed by its operations (depth first). */
+  /**
+   * Numbers the ladder lines, the round lines, then the operations of each
+   * round line (depth first). Lines come before operations so that an edit
+   * that adds or removes an operation leaves every line's number as it was
+   * (the rounds' `lines` keep their numbers; see shared/incremental.ts).
+   */
   preassign(ast: PatternAst): void {
     for (const l of ast.ladders) this.of(l);
+    for (const line of ast.rounds) this.of(line);
     const ops = (list: readonly Op[]): void => {
       for (const op of list) {
         this.of(op);
         if (op.type === 'group') ops(op.ops);
       }
     };
-    for (const line of ast.rounds) {
-      this.of(line);
-      ops(line.ops);
-    }
+    for (const line of ast.rounds) ops(line.ops);
   }
 
   /** The index of a node numbered before, or undefined. */

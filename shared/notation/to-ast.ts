@@ -70,8 +70,20 @@ function nodeSpan(n: CstNode | undefined): Span | null {
 const stitchSplit = new RegExp(`^(${STITCH_WORDS.join('|')})(\\d*)$`, 'i');
 const unquote = (t: IToken) => t.image.slice(1, -1);
 
+/**
+ * A cache of round lines by their statement's CST, for the incremental
+ * compiler: a round line depends only on its own statement and its place
+ * among the round lines (`index`).
+ */
+export interface RoundLineMemo {
+  get(cst: CstNode): { line: RoundLine; diagnostics: Diagnostic[] } | undefined;
+  set(cst: CstNode, line: RoundLine, diagnostics: Diagnostic[]): void;
+  /** The cached line at another index (a copy). */
+  reindex(line: RoundLine, index: number): RoundLine;
+}
+
 /** Builds the AST from parsed statements; returns it with the diagnostics found on the way. */
-export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; diagnostics: Diagnostic[] } {
+export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): { ast: PatternAst; diagnostics: Diagnostic[] } {
   const diagnostics: Diagnostic[] = [];
   const header: HeaderAst = { title: null, designer: null, item: null, sizes: null, sizesSpan: null, gauge: null, yarns: [], construction: null, floatLimit: null };
   const ast: PatternAst = { header, castOn: null, rounds: [], charts: [], ladders: [], comments: [] };
@@ -237,6 +249,14 @@ export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; dia
   };
 
   for (const st of statements) {
+    if (memo && st.children.roundLine) {
+      const hit = memo.get(st);
+      if (hit) {
+        ast.rounds.push(hit.line.index === ast.rounds.length ? hit.line : memo.reindex(hit.line, ast.rounds.length));
+        diagnostics.push(...hit.diagnostics);
+        continue;
+      }
+    }
     const [kind, inner] = Object.entries(st.children)[0] ?? [];
     const n = (inner as Element[] | undefined)?.[0];
     if (!kind || !n || isToken(n)) continue;
@@ -300,6 +320,7 @@ export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; dia
         break;
       }
       case 'roundLine': {
+        const before = diagnostics.length;
         const first = graded(sub(n, 'first')[0], 'a round number');
         const colon = tok(n, 'Colon');
         if (!first || !colon) break;
@@ -320,6 +341,7 @@ export function buildAst(statements: readonly CstNode[]): { ast: PatternAst; dia
           headSpan: joinSpans(tokenSpan(wordTok ?? colon), tokenSpan(colon)),
         };
         ast.rounds.push(line);
+        memo?.set(st, line, diagnostics.slice(before));
         break;
       }
       case 'chartBlock': {

@@ -13,6 +13,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compile } from '../../shared/index.ts';
 import { createIncrementalCompiler } from '../../shared/incremental.ts';
+import { editPatternSource } from '../bench/edit-pattern.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
 const demos = ['lantern-mitts', 'tidepool-cowl', 'quarry-tote-panel'].map((n) => readFileSync(path.join(root, 'examples', `${n}.loop`), 'utf8'));
@@ -51,6 +52,7 @@ function apply(source: string, e: Edit): string {
 }
 
 const json = (v: unknown) => JSON.stringify(v);
+// LW_INCREMENTAL_RUNS=2000 npx vitest run tests/shared/incremental.test.ts: a longer search.
 
 describe('incremental compiler', () => {
   it('gives the same JSON as a fresh compile after every edit of a demo pattern (fast-check, 80 edit sequences)', () => {
@@ -64,7 +66,7 @@ describe('incremental compiler', () => {
           expect(json(inc.compile(source, { size }))).toBe(json(compile(source, { size })));
         }
       }),
-      { numRuns: 80 },
+      { numRuns: Number(process.env.LW_INCREMENTAL_RUNS ?? 80) },
     );
   }, 600_000);
 
@@ -91,6 +93,67 @@ describe('incremental compiler', () => {
     expect(inc.lastStats.reusedCheck).toBe(false);
     expect(json(result)).toBe(json(compile(edited)));
   });
+
+  it('takes the rounds before and after a one-round edit from the previous check, and the result is still the fresh one', () => {
+    const inc = createIncrementalCompiler();
+    const source = demos[0];
+    inc.compile(source);
+    const edited = source.replace('rounds 51-56: (k2, p2) to end in A', 'rounds 51-56: (k2, p2) to end in A note "cuff"');
+    const result = inc.compile(edited);
+    // The note changes nothing the rounds do: every round but the edited line's is taken over.
+    expect(inc.lastStats.reusedRounds).toBeGreaterThan(inc.lastStats.workedRounds);
+    expect(json(result)).toBe(json(compile(edited)));
+  });
+
+  it('gives the fresh JSON after edits inside round lines, where earlier rounds and later rounds are taken over (fast-check, 120 edit sequences)', () => {
+    // Round-line edits a designer makes: change a stitch, a count, a yarn, add a note,
+    // drop or repeat an operation, renumber, duplicate or drop the line.
+    const bases = [...demos, editPatternSource()];
+    const roundEdit = fc.record({
+      line: fc.nat(),
+      how: fc.constantFrom('k->p', 'p->k', 'count+1', 'count-1', 'note', 'drop-op', 'repeat-op', 'renumber', 'duplicate', 'drop', 'yarn', 'ssk', 'garbage'),
+    });
+    const edited = (source: string, e: { line: number; how: string }): string => {
+      const lines = source.split('\n');
+      const rounds = lines.map((l, i) => ({ l, i })).filter(({ l }) => /^(rounds?|rows?) \d/.test(l));
+      if (rounds.length === 0) return source;
+      const { l, i } = rounds[e.line % rounds.length];
+      let n = l;
+      switch (e.how) {
+        case 'k->p': n = l.replace(/\bk(\s?\d)/, 'p$1'); break;
+        case 'p->k': n = l.replace(/\bp(\s?\d)/, 'k$1'); break;
+        case 'count+1': n = l.replace(/(\d+)(?!.*\d)/, (d) => String(Number(d) + 1)); break;
+        case 'count-1': n = l.replace(/(\d+)(?!.*\d)/, (d) => String(Math.max(0, Number(d) - 1))); break;
+        case 'note': n = l.includes(' note ') ? l.replace(/ note "[^"]*"/, '') : `${l} note "try it on"`; break;
+        case 'drop-op': n = l.replace(/, [^,]*$/, ''); break;
+        case 'repeat-op': n = l.replace(/: ([^,]*)/, ': $1, $1'); break;
+        case 'renumber': n = l.replace(/^(rounds?|rows?) (\d+)/, (_m, w: string, d: string) => `${w} ${Number(d) + 1}`); break;
+        case 'yarn': n = l.includes(' in ') ? l.replace(/ in [AB]\b/, ' in B') : `${l} in B`; break;
+        case 'ssk': n = l.replace('k2tog', 'ssk'); break;
+        case 'garbage': n = `${l} @@`; break;
+      }
+      if (e.how === 'duplicate') lines.splice(i, 0, l);
+      else if (e.how === 'drop') lines.splice(i, 1);
+      else lines[i] = n;
+      return lines.join('\n');
+    };
+    let resumed = 0;
+    fc.assert(
+      fc.property(fc.nat({ max: bases.length - 1 }), fc.array(roundEdit, { minLength: 1, maxLength: 3 }), fc.option(fc.constantFrom('S', 'M', 'L'), { nil: undefined }), (d, edits, size) => {
+        const inc = createIncrementalCompiler();
+        let source = bases[d];
+        inc.compile(source, { size });
+        for (const e of edits) {
+          source = edited(source, e);
+          expect(json(inc.compile(source, { size }))).toBe(json(compile(source, { size })));
+          if (inc.lastStats.reusedRounds > 0) resumed++;
+        }
+      }),
+      { numRuns: Number(process.env.LW_INCREMENTAL_RUNS ?? 120) },
+    );
+    // The property is only worth something if the resuming path ran.
+    expect(resumed).toBeGreaterThan(20);
+  }, 600_000);
 
   it('moves reused statements after an edit that adds lines above them (spans and line numbers as a fresh compile)', () => {
     const inc = createIncrementalCompiler();
