@@ -6,27 +6,36 @@
  * previous source it compiled.
  *
  * What is reused, and why it is safe:
- * 1. Parsing of unchanged statements. The whole source is lexed again (the
- *    lexer is cheap and its tokens decide where statements start). The token
- *    stream is cut before every statement-starting token, as the parser
- *    itself does (shared/notation/parser.ts parses each piece alone, with a
- *    fresh parser state, so a piece's CST and errors depend only on its own
- *    tokens). A piece whose text, token kinds and starting column equal a
+ * 1. Lexing and cutting. The previous source's statements (pieces) before
+ *    the first changed character and after the last one are kept, those
+ *    after it moved by the change in length (cutAround). Only whole lines
+ *    around the edit are lexed again: no token but skipped blank space
+ *    crosses a line break, and the region starts and ends where a statement
+ *    starts a line, so the cut (parser.ts `startsStatement`, repeated here)
+ *    comes out as a cut of the whole text would. Anything unusual (\r line
+ *    ends, unreadable characters, many errors, edits in the first statement)
+ *    lexes the whole text instead (cutAll).
+ * 2. Parsing of unchanged statements. The parser parses each piece alone
+ *    with a fresh state, so a piece's CST and errors depend only on its own
+ *    tokens: a piece whose text, token kinds and starting column equal a
  *    piece of the previous source gets that piece's CST and errors back,
- *    copied with every offset and line moved by the distance it moved
- *    (columns cannot change: the first line starts at the same column, later
- *    lines start inside the piece). The CST-to-AST step then runs as usual.
- * 2. The AST and the checker's per-size results, when every piece was
- *    reused unmoved and the pieces are exactly the previous source's pieces
- *    in the same order (so every CST, hence the AST the CST-to-AST step
- *    builds from them, is identical, spans included), and the requested size
- *    and whether there were syntax errors are the same too: the checker is a
- *    deterministic function of exactly these (shared/check/index.ts
- *    `checkPattern`; it does not read the comment list, which is rebuilt).
- *    This covers edits of comments and blank space that do not move later
- *    text (same length, or after the last statement) and re-compiling an
- *    unchanged text. Any other edit, a note included, works every size
- *    again: a changed round can change every round after it.
+ *    with every offset and line moved by the distance it moved (columns
+ *    cannot change: the first line starts at the same column, later lines
+ *    start inside the piece), lazily (settle()).
+ * 3. Round lines of unchanged statements (the CST-to-AST step's memo): a
+ *    round line depends only on its statement and its place among the round
+ *    lines. A moved one is copied with moved spans (LineMover), a renumbered
+ *    one copied with its new index; `pairs` records old object -> copy.
+ * 4. The check. When nothing but round lines changed (header, cast-on,
+ *    charts and ladders reused), each size's rounds resume from the
+ *    previous check's trace (shared/check/resume.ts): rounds before the
+ *    first round whose plan changed are taken over, the changed ones are
+ *    worked, and once the machine is back in the state the previous check
+ *    had at a round, the rest is taken over too. Old objects map to new ones
+ *    through `pairs` (copies), identity (unchanged) or not at all (objects
+ *    of edited statements, `dead`: then the check starts over).
+ *    When every piece is the previous one, unmoved, the whole previous
+ *    check is reused (comment edits in place).
  *
  * Results may share objects with earlier results; treat them as read-only
  * (as every compile result is). Memory: only the previous source's pieces
