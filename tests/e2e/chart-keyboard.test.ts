@@ -70,7 +70,8 @@ describe('chart cells by keyboard', () => {
 
     await tabIntoChart(page);
     expect(await focusedRole(page)).toBe('gridcell');
-    expect(await focusedName(page)).toBe('Round 1, stitch 1: k, yarn A Sea lavender');
+    // The full name comes with the grid's module (fetched once the chart is drawn and the page is idle).
+    await expect.poll(() => focusedName(page)).toBe('Round 1, stitch 1: k, yarn A Sea lavender');
     // Once the keyboard is in, every round is a row and every cell a gridcell (4 rounds x 12 columns).
     expect(await grid.getByRole('row').count()).toBe(4);
     expect(await grid.getByRole('gridcell').count()).toBe(48);

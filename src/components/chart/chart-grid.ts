@@ -11,18 +11,19 @@
  *   only; when the grid is prepared they are gathered into one row group per
  *   round (they do not overlap the plain strips, so the drawing is the same).
  *
- * Cost: {@link ChartGrid.init} is O(1) per drawing (the grid role, the one
- * tab stop and its name), so redrawing on every keystroke stays cheap; the
- * O(cells) work (roles on every row and cell, the navigation index) runs
- * once, when the keyboard first reaches the grid ({@link ChartGrid.prepare}).
- * Names are computed for the focused cell only.
+ * Cost: the grid role and the one tab stop are placed by tab-stop.ts, O(1)
+ * per drawing, so redrawing on every keystroke stays cheap; this module is
+ * loaded when a chart is first reached, and its O(cells) work (roles on
+ * every row and cell, the navigation index) runs once per drawing, when the
+ * keyboard first enters the grid ({@link ChartGrid.prepare}). Names are
+ * computed for the focused cell only.
  *
  * Arrow keys move as the drawing looks: Up is the next round (drawn above),
  * Left and Right follow the columns on screen. Home/End go to the ends of
  * the row, Ctrl+Home/Ctrl+End to the top-left and bottom-right cells,
  * PageUp/PageDown ten rounds (the thick grid lines are ten apart).
  */
-import { symbolDef, type SymbolId } from '../../../shared/render/symbols';
+import { findCell, isBackView, markTabStop, num, roundOf, isStitchCell, type GridSpot } from './tab-stop';
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
 
@@ -41,22 +42,8 @@ export interface ChartGridOptions {
   yarns?: readonly GridYarn[];
 }
 
-/** Where the tab stop is, kept across redraws: round number and column on screen (0 = leftmost). */
-export interface GridSpot { round: number; column: number }
-
 /** Keys the grid handles (anything else is left to the page). */
 export type GridKey = 'ArrowLeft' | 'ArrowRight' | 'ArrowUp' | 'ArrowDown' | 'Home' | 'End' | 'PageUp' | 'PageDown';
-const MOVES = new Set<string>(['ArrowLeft', 'ArrowRight', 'ArrowUp', 'ArrowDown', 'Home', 'End', 'PageUp', 'PageDown']);
-
-/** True for a key {@link ChartGrid.move} understands. */
-export function isGridKey(key: string): key is GridKey {
-  return MOVES.has(key);
-}
-
-const num = (el: Element, a: 'x' | 'y'): number => Number(el.getAttribute(a) ?? el.firstElementChild?.getAttribute(a) ?? NaN);
-const roundOf = (el: Element): number => Number(el.closest('[data-round]')?.getAttribute('data-round') ?? NaN);
-/** A stitch cell (as opposed to a no-stitch cell): it carries its stitch number or its source span. */
-export const isStitchCell = (el: Element): boolean => el.hasAttribute('data-stitch') || el.hasAttribute('data-from');
 
 /** One chart drawing made operable by keyboard. */
 export class ChartGrid {
@@ -71,56 +58,20 @@ export class ChartGrid {
   /** Positioned element around the drawing that holds the focus ring (the scroll container). */
   ringHost: HTMLElement | null = null;
   private yarnByColour: Map<string, GridYarn> | null = null;
+  private symbolNames: Map<string, { abbreviation: string; meaning: string }> | null = null;
 
-  constructor(svg: SVGSVGElement, opts: ChartGridOptions) {
+  /** A grid over `svg`, whose tab stop tab-stop.ts placed on `tabStop`. */
+  constructor(svg: SVGSVGElement, opts: ChartGridOptions, tabStop: Element) {
     this.svg = svg;
     this.opts = opts;
     this.group = svg.querySelector('g.cells');
-    this.back = !svg.querySelector('g.cells > g.row');
-  }
-
-  /**
-   * Marks the grid and gives it its one tab stop: the cell at `spot` when it
-   * still exists, else stitch 1 of `round` (or of the first round). O(1) in
-   * the size of the chart. Returns false when the drawing has no cells.
-   */
-  init(spot: GridSpot | null, round: number | null = null): boolean {
-    const g = this.group;
-    if (!g) return false;
-    const first = this.initialCell(spot, round);
-    if (!first) return false;
-    this.svg.setAttribute('role', 'group');
-    g.setAttribute('role', 'grid');
-    g.setAttribute('aria-label', this.opts.label);
-    this.setActive(first);
-    return true;
-  }
-
-  private initialCell(spot: GridSpot | null, round: number | null): Element | null {
-    const g = this.group!;
-    if (this.back) {
-      const cells = g.querySelectorAll(':scope > g.backing[data-round], :scope > g[role="row"] > g.backing');
-      if (!cells.length) return null;
-      const want = spot?.round ?? round;
-      if (want !== null) for (const c of cells) if (roundOf(c) === want) return c;
-      return cells[0] ?? null;
-    }
-    // Rows are direct children of the group: walking them is O(rounds), where a selector would visit every cell.
-    const rowOf = (n: number | null): Element | null => {
-      if (n === null) return null;
-      for (const row of g.children) if (row.getAttribute('data-round') === String(n)) return row;
-      return null;
-    };
-    const spotRow = spot ? rowOf(spot.round) : null;
-    if (spot && spotRow?.children.length) return spotRow.children[Math.min(spot.column, spotRow.children.length - 1)]!;
-    const row = rowOf(round) ?? g.querySelector(':scope > g.row');
-    if (!row) return null;
-    return row.querySelector(':scope > [data-stitch="1"]') ?? [...row.children].find(isStitchCell) ?? row.firstElementChild;
+    this.back = this.group ? isBackView(this.group) : false;
+    this.setActive(tabStop);
   }
 
   /** Moves the tab stop to stitch 1 of `round` (when that round is drawn). */
   startAt(round: number): void {
-    const cell = this.initialCell(null, round);
+    const cell = this.group ? findCell(this.group, null, round) : null;
     if (cell && roundOf(cell) === round) this.setActive(cell);
   }
 
@@ -216,19 +167,10 @@ export class ChartGrid {
 
   /** Moves the tab stop to `cell` and names it (role, label, description). */
   setActive(cell: Element): void {
-    if (this.active && this.active !== cell) this.active.removeAttribute('tabindex');
-    this.active = cell;
-    cell.setAttribute('tabindex', '0');
-    // Only real changes: every touched attribute that a style rule reads costs a repaint of the whole drawing.
-    if (cell.getAttribute('role') !== 'gridcell') cell.setAttribute('role', 'gridcell');
-    // The ring below replaces the page's outline, which the browser would paint inside the SVG.
-    (cell as SVGElement).style.outline = 'none';
-    // Back view before prepare(): the cell still sits directly in the grid group, which keeps its role.
-    const row = cell.parentElement;
-    if (row && row !== this.group && row.getAttribute('role') !== 'row') row.setAttribute('role', 'row');
     const { name, description } = this.describe(cell);
-    cell.setAttribute('aria-label', name);
+    markTabStop(cell, this.group ?? this.svg, this.active, name);
     cell.setAttribute('aria-description', description);
+    this.active = cell;
   }
 
   /** Focuses `cell` (it becomes the tab stop) and shows the focus ring when the keyboard put it there. */
@@ -285,13 +227,12 @@ export class ChartGrid {
     const round = roundOf(cell);
     if (!isStitchCell(cell)) return { name: `${word} ${round}, column ${this.columnFromRight(cell)}: no stitch`, description: 'No stitch here: skip this cell.' };
     const href = cell.tagName.toLowerCase() === 'use' ? null : cell.querySelector('use[href^="#sym-"]')?.getAttribute('href');
-    const id = (href ? href.slice(5) : 'knit') as SymbolId;
-    const def = symbolDef(id);
+    const def = this.symbols().get(href ? href.slice(5) : 'knit');
     const backing = cell.classList.contains('backing');
     const stitch = cell.getAttribute('data-stitch');
     const fill = (cell.getAttribute('fill') ?? cell.firstElementChild?.getAttribute('fill') ?? '').toLowerCase();
     const yarn = this.yarns().get(fill);
-    const op = def ? def.abbreviation || def.meaning : id;
+    const op = def ? def.abbreviation || def.meaning : (href ?? '#sym-stitch').slice(5).replace(/-/g, ' ');
     const where = stitch ? `stitch ${stitch}` : `column ${this.columnFromRight(cell)}`;
     const name = `${word} ${round}, ${where}: ${op}${backing ? ', backing stitch' : ''}${yarn ? `, yarn ${yarn.name} ${yarn.label}` : ''}`;
     return { name, description: `${def ? `${def.meaning}. ` : ''}${hint}` };
@@ -305,6 +246,32 @@ export class ChartGrid {
     const ground = last ? null : this.group?.querySelector(':scope > rect');
     const right = last ? num(last, 'x') : ground ? num(ground, 'x') + Number(ground.getAttribute('width')) - size : num(cell, 'x');
     return Math.round((right - num(cell, 'x')) / size) + 1;
+  }
+
+  /**
+   * What each symbol is called, read from the chart's own key (each line: the
+   * symbol drawn with <use href="#sym-ID">, then "abbreviation: meaning"), so
+   * the words are the renderer's. Plain cells are knit stitches, whose key
+   * line has no symbol: it is the line that starts with "k: ".
+   */
+  private symbols(): Map<string, { abbreviation: string; meaning: string }> {
+    if (this.symbolNames) return this.symbolNames;
+    const names = new Map<string, { abbreviation: string; meaning: string }>();
+    const split = (t: string) => { const i = t.indexOf(': '); return i < 0 ? { abbreviation: '', meaning: t } : { abbreviation: t.slice(0, i), meaning: t.slice(i + 2) }; };
+    let pending: string | null = null;
+    for (const el of this.svg.querySelectorAll('g.legend > *')) {
+      const tag = el.tagName.toLowerCase();
+      if (tag === 'use') pending = el.getAttribute('href')?.replace(/^#sym-/, '') ?? null;
+      else if (tag === 'text') {
+        const t = el.textContent ?? '';
+        if (pending) names.set(pending, split(t));
+        else if (t.startsWith('k: ') && !names.has('knit')) names.set('knit', split(t));
+        pending = null;
+      }
+    }
+    if (!names.has('knit')) names.set('knit', { abbreviation: 'k', meaning: 'knit' });
+    this.symbolNames = names;
+    return names;
   }
 
   private yarns(): Map<string, GridYarn> {

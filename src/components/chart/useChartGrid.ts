@@ -1,16 +1,24 @@
 /**
- * Wires a {@link ChartGrid} to the element that holds a chart SVG: one
+ * Wires the chart grid to the element that holds a chart SVG: one
  * delegated keydown / focusin / focusout listener on that element (never one
- * per cell), a fresh grid for each new drawing that keeps the tab stop on
- * the same round and column, and the focus ring (drawn in the holder, which
- * must be positioned, e.g. Tailwind `relative`).
+ * per cell), the tab stop placed on every new drawing (on the same round
+ * and column as before, with the focus if the grid had it), and the focus
+ * ring (drawn in the holder, which must be positioned, e.g. Tailwind
+ * `relative`).
+ *
+ * The grid's moving and naming code (chart-grid.ts) is not needed to show
+ * a chart, so it is fetched once a chart is drawn and the page is idle (or
+ * sooner, when the pointer or the keyboard reaches the chart); keys pressed
+ * before it arrives wait for it. Once loaded, the focused cell is named in
+ * the same task as the focus moves, before assistive technology reads it.
  *
  * Enter or Space on a cell calls `onActivate(cell)`, which should do what a
  * click on that cell does; `onFocusCell(name)` hears the name of each cell
  * the keyboard reaches (for a status line).
  */
 import { useCallback, useEffect, useRef, type RefObject } from 'react';
-import { ChartGrid, isGridKey, type ChartGridOptions, type GridSpot } from './chart-grid';
+import type { ChartGrid, ChartGridOptions } from './chart-grid';
+import { findCell, markTabStop, placeTabStop, shortName, type GridSpot } from './tab-stop';
 
 export interface UseChartGridOptions extends ChartGridOptions {
   /** Changes whenever a new SVG is in the holder (e.g. the SVG string itself); null: nothing drawn. */
@@ -21,9 +29,15 @@ export interface UseChartGridOptions extends ChartGridOptions {
   onFocusCell?: (name: string | null) => void;
 }
 
+let gridModule: Promise<typeof import('./chart-grid')> | null = null;
+const loadGridModule = () => (gridModule ??= import('./chart-grid'));
+
+/** The drawing in the holder now: its SVG and the cell holding the tab stop. */
+interface Drawn { svg: SVGSVGElement; tabStop: Element; grid: ChartGrid | null }
+
 /** Makes the chart in `holder` a keyboard grid. Returns `select(cell)`, to move the tab stop on a click. */
 export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseChartGridOptions): { select: (cell: Element) => void } {
-  const grid = useRef<ChartGrid | null>(null);
+  const drawn = useRef<Drawn | null>(null);
   const spot = useRef<GridSpot | null>(null);
   const focused = useRef(false);
   const latest = useRef(opts);
@@ -32,85 +46,117 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
   // By content: a new compile hands over an equal list as a new array, which must not rebuild the grid.
   const yarnKey = JSON.stringify(opts.yarns ?? null);
 
-  // A new drawing: a new grid, with the tab stop where it was (and the focus, if the grid had it).
-  // The grid's name and the start round are read when it is made, so changing them (the knitter's
+  /** The grid of the current drawing, loading its module the first time. */
+  const gridNow = useCallback(async (): Promise<ChartGrid | null> => {
+    const d = drawn.current;
+    if (!d) return null;
+    if (d.grid) return d.grid;
+    const { ChartGrid: Grid } = await loadGridModule();
+    if (drawn.current !== d) return null; // redrawn meanwhile
+    const o = latest.current;
+    d.grid ??= new Grid(d.svg, { word: o.word, label: o.label, hint: o.hint, yarns: o.yarns }, d.tabStop);
+    d.grid.ringHost = holder.current;
+    return d.grid;
+  }, [holder]);
+
+  // A new drawing: the tab stop where it was (and the focus, if the grid had it).
+  // The grid's name and the start round are read here, so changing them (the knitter's
   // current round) does not rebuild the grid under the focused cell.
   useEffect(() => {
     const svg = holder.current?.querySelector('svg');
-    grid.current = null;
+    drawn.current = null;
     if (!svg || !drawing) return;
-    const g = new ChartGrid(svg, { word, label: latest.current.label, hint, yarns: latest.current.yarns });
-    g.ringHost = holder.current;
-    if (!g.init(spot.current, latest.current.startRound ?? null)) return;
-    grid.current = g;
-    if (focused.current && g.activeCell && (!document.activeElement || document.activeElement === document.body)) g.focus(g.activeCell);
-    return () => { spot.current = g.spot() ?? spot.current; g.release(); };
+    const tabStop = placeTabStop(svg, latest.current.label, word, spot.current, latest.current.startRound ?? null);
+    if (!tabStop) return;
+    const d: Drawn = { svg, tabStop, grid: null };
+    drawn.current = d;
+    if (!gridModule) {
+      if (typeof requestIdleCallback === 'function') requestIdleCallback(() => void loadGridModule(), { timeout: 2000 });
+      else setTimeout(() => void loadGridModule(), 500);
+    }
+    if (focused.current && (!document.activeElement || document.activeElement === document.body)) (tabStop as SVGElement).focus();
+    return () => {
+      spot.current = d.grid?.spot() ?? spot.current;
+      if (d.grid) d.grid.release(); else d.tabStop.removeAttribute('tabindex');
+    };
   }, [holder, drawing, word, hint, yarnKey]);
 
-  useEffect(() => { grid.current?.setLabel(label); }, [label, drawing]);
+  useEffect(() => { drawn.current?.svg.querySelector('g.cells')?.setAttribute('aria-label', label); }, [label, drawing]);
 
   // A new start round (the knitter's current round moved on) takes the tab stop along, unless the keyboard is in the grid.
   const { startRound = null } = opts;
   useEffect(() => {
-    const g = grid.current;
-    if (!g || focused.current || startRound === null) return;
-    g.startAt(startRound);
-    spot.current = g.spot();
-  }, [startRound, drawing]);
+    const d = drawn.current;
+    if (!d || focused.current || startRound === null) return;
+    if (d.grid) { d.grid.startAt(startRound); spot.current = d.grid.spot(); return; }
+    const group = d.svg.querySelector('g.cells');
+    const cell = group ? findCell(group, null, startRound) : null;
+    if (!group || !cell || cell === d.tabStop) return;
+    markTabStop(cell, group, d.tabStop, shortName(cell, word));
+    d.tabStop = cell;
+  }, [startRound, drawing, word]);
 
   useEffect(() => {
     const el = holder.current;
     if (!el) return;
+    const isCell = (t: EventTarget | null): t is Element => t instanceof Element && t.getAttribute('role') === 'gridcell' && el.contains(t);
     const onKey = (e: KeyboardEvent) => {
-      const g = grid.current;
-      const target = e.target as Element;
-      if (!g || !g.owns(target) || e.altKey || e.metaKey) return;
-      if (e.key === 'Enter' || e.key === ' ') {
-        e.preventDefault();
-        latest.current.onActivate(target);
-        return;
-      }
-      if (!isGridKey(e.key)) return;
+      const target = e.target;
+      if (!isCell(target) || e.altKey || e.metaKey) return;
+      const activate = e.key === 'Enter' || e.key === ' ';
+      const move = ['ArrowLeft', 'ArrowRight', 'ArrowUp', 'ArrowDown', 'Home', 'End', 'PageUp', 'PageDown'].includes(e.key);
+      if (!activate && !move) return;
       e.preventDefault();
-      const next = g.move(e.key, e.ctrlKey);
-      if (!next) return;
-      g.focus(next);
-      spot.current = g.spot();
-      latest.current.onFocusCell?.(next.getAttribute('aria-label'));
+      const { key, ctrlKey } = e;
+      if (activate) { latest.current.onActivate(target); return; }
+      void gridNow().then((g) => {
+        if (!g || !g.owns(target)) return;
+        const next = g.move(key as Parameters<ChartGrid['move']>[0], ctrlKey);
+        if (!next) return;
+        g.focus(next);
+        spot.current = g.spot();
+        latest.current.onFocusCell?.(next.getAttribute('aria-label'));
+      });
     };
     const onFocusIn = (e: FocusEvent) => {
-      const g = grid.current;
-      const target = e.target as Element;
-      if (!g || !g.owns(target)) return;
+      const target = e.target;
+      if (!isCell(target)) return;
       focused.current = true;
-      g.prepare();
-      // Preparing the back view gathers its cells into row groups; moving the focused cell drops its focus.
-      if (document.activeElement !== target) { g.focus(target); return; }
-      g.showRing(target);
-      latest.current.onFocusCell?.(target.getAttribute('aria-label'));
+      void gridNow().then((g) => {
+        if (!g || !g.owns(target) || !focused.current) return;
+        g.prepare();
+        g.setActive(target);
+        // Preparing the back view gathers its cells into row groups; moving the focused cell drops its focus.
+        if (document.activeElement !== target) g.focus(target); else g.showRing(target);
+        latest.current.onFocusCell?.(target.getAttribute('aria-label'));
+      });
     };
     const onFocusOut = (e: FocusEvent) => {
-      const to = e.relatedTarget as Element | null;
-      if (to && grid.current?.owns(to)) return;
+      if (isCell(e.relatedTarget)) return;
       focused.current = false;
-      grid.current?.hideRing();
-      if (grid.current?.owns(e.target as Element)) latest.current.onFocusCell?.(null);
+      drawn.current?.grid?.hideRing();
+      if (isCell(e.target)) latest.current.onFocusCell?.(null);
     };
+    // A pointer near the chart fetches the module at once, so a click rarely waits for it.
+    const warm = () => { void loadGridModule(); };
     el.addEventListener('keydown', onKey);
     el.addEventListener('focusin', onFocusIn);
     el.addEventListener('focusout', onFocusOut);
+    el.addEventListener('pointerenter', warm, { once: true });
     return () => {
       el.removeEventListener('keydown', onKey);
       el.removeEventListener('focusin', onFocusIn);
       el.removeEventListener('focusout', onFocusOut);
+      el.removeEventListener('pointerenter', warm);
     };
-  }, [holder]);
+  }, [holder, gridNow]);
 
   const select = useCallback((cell: Element) => {
-    const g = grid.current;
-    if (!g || !g.owns(cell)) return;
-    g.setActive(cell);
-    spot.current = g.spot();
-  }, []);
+    void gridNow().then((g) => {
+      if (!g || !g.owns(cell)) return;
+      g.setActive(cell);
+      spot.current = g.spot();
+    });
+  }, [gridNow]);
   return { select };
 }
