@@ -23,6 +23,9 @@ export interface EditFigure {
   statements: number;
   /** True when the edit reused the whole check (all sizes). */
   reusedCheck: boolean;
+  /** Rounds (over all sizes) taken over from the previous check, and rounds worked again. */
+  reusedRounds: number;
+  workedRounds: number;
 }
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
@@ -50,5 +53,5 @@ export function measureEdit(kind: EditKind, runs = 21, warm = 5): EditFigure {
     if (i >= warm) { full.push(f); edit.push(e); }
   }
   const fullMs = median(full), editMs = median(edit);
-  return { kind, fullMs, editMs, ratio: editMs / fullMs, reparsed: stats.pieces - stats.reusedPieces, statements: stats.pieces, reusedCheck: stats.reusedCheck };
+  return { kind, fullMs, editMs, ratio: editMs / fullMs, reparsed: stats.pieces - stats.reusedPieces, statements: stats.pieces, reusedCheck: stats.reusedCheck, reusedRounds: stats.reusedRounds, workedRounds: stats.workedRounds };
 }
