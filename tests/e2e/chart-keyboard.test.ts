@@ -1,9 +1,11 @@
 /**
  * The studio's chart by keyboard, in Chromium against the real app: the
- * chart is one tab stop (roving tabindex), a grid of rows and cells in the
- * sense of the WAI-ARIA Authoring Practices grid pattern (arrow keys,
- * Home/End, Ctrl+Home/Ctrl+End; Enter does what a click does), each cell
- * named by round, stitch, operation and yarn, with a visible focus ring.
+ * chart is one tab stop (roving tabindex), a grid in the sense of the
+ * WAI-ARIA Authoring Practices grid pattern (arrow keys, Home/End,
+ * Ctrl+Home/Ctrl+End; Enter does what a click does) that states its size
+ * with aria-rowcount/aria-colcount and each focused cell's place with
+ * aria-rowindex/aria-colindex, each cell named by round, stitch, operation
+ * and yarn, with a visible focus ring.
  *
  * Stitch arithmetic of the test pattern (common practice: rounds are read
  * from right to left, so stitch 1 is the rightmost cell; k2tog uses two
@@ -72,9 +74,12 @@ describe('chart cells by keyboard', () => {
     expect(await focusedRole(page)).toBe('gridcell');
     // The full name comes with the grid's module (fetched once the chart is drawn and the page is idle).
     await expect.poll(() => focusedName(page)).toBe('Round 1, stitch 1: k, yarn A Sea lavender');
-    // Once the keyboard is in, every round is a row and every cell a gridcell (4 rounds x 12 columns).
-    expect(await grid.getByRole('row').count()).toBe(4);
-    expect(await grid.getByRole('gridcell').count()).toBe(48);
+    // The grid gives its size (4 rounds x 12 columns) and the focused cell its place in it: row 1 is round 1,
+    // columns count from the left, so stitch 1 (the rightmost, where rounds start) is column 12.
+    expect(await grid.getAttribute('aria-rowcount')).toBe('4');
+    expect(await grid.getAttribute('aria-colcount')).toBe('12');
+    expect(await page.evaluate(() => [document.activeElement?.parentElement?.getAttribute('role'), document.activeElement?.parentElement?.getAttribute('aria-rowindex'), document.activeElement?.getAttribute('aria-colindex')]))
+      .toEqual(['row', '1', '12']);
 
     // Left on screen is the next stitch of the round (read from the right).
     await page.keyboard.press('ArrowLeft');

@@ -80,19 +80,21 @@ export class ChartGrid {
     if (this.group?.getAttribute('role') === 'grid') this.group.setAttribute('aria-label', label);
   }
 
-  /** Roles on every row and cell and the navigation index; runs once (O(cells)). */
+  /**
+   * The navigation index; runs once per drawing (O(cells), reads only). Cells
+   * get their role and position when they become the tab stop, as in a grid
+   * whose rows are not all in the page (WAI-ARIA `aria-rowcount`,
+   * `aria-rowindex`): writing an attribute on every cell of a large chart
+   * makes the browser restyle and repaint all of them.
+   */
   prepare(): void {
     if (this.rows || !this.group) return;
-    const rows = this.back ? this.backRows() : [...this.group.querySelectorAll(':scope > g.row')].reverse().map((r) => [...r.children]);
-    rows.forEach((cells, r) => {
-      cells[0]?.parentElement?.setAttribute('role', 'row');
-      cells.forEach((cell, c) => {
-        cell.setAttribute('role', 'gridcell');
-        this.at.set(cell, [r, c]);
-      });
-    });
-    this.rows = rows.filter((r) => r.length > 0);
-    if (this.rows.length !== rows.length) this.rows.forEach((cells, r) => cells.forEach((cell, c) => this.at.set(cell, [r, c])));
+    const rows = (this.back ? this.backRows() : [...this.group.children].filter((r) => r.matches('g.row')).reverse().map((r) => [...r.children]))
+      .filter((cells) => cells.length > 0);
+    rows.forEach((cells, r) => cells.forEach((cell, c) => this.at.set(cell, [r, c])));
+    this.rows = rows;
+    this.group.setAttribute('aria-rowcount', String(rows.length));
+    this.group.setAttribute('aria-colcount', String(this.back ? this.columnCount() : Math.max(0, ...rows.map((cells) => cells.length))));
   }
 
   /** Back view: one row group per round, placed where the round's first backing cell was. */
@@ -170,7 +172,20 @@ export class ChartGrid {
     const { name, description } = this.describe(cell);
     markTabStop(cell, this.group ?? this.svg, this.active, name);
     cell.setAttribute('aria-description', description);
+    const at = this.at.get(cell);
+    if (at && this.rows) {
+      // Row 1 is round 1 (the rows' order in the page); columns count from the left as drawn.
+      cell.parentElement?.setAttribute('aria-rowindex', String(this.rows.length - at[0]));
+      cell.setAttribute('aria-colindex', String(this.back ? this.columnCount() - this.columnFromRight(cell) + 1 : at[1] + 1));
+    }
     this.active = cell;
+  }
+
+  /** Columns of the chart (the back view's white ground spans all of them). */
+  private columnCount(): number {
+    const size = Number(this.svg.querySelector('#cell')?.getAttribute('width') ?? 16);
+    const ground = this.group?.querySelector(':scope > rect');
+    return ground ? Math.round(Number(ground.getAttribute('width')) / size) : 0;
   }
 
   /** Focuses `cell` (it becomes the tab stop) and shows the focus ring when the keyboard put it there. */
