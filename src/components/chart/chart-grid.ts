@@ -13,10 +13,10 @@
  *
  * Cost: the grid role and the one tab stop are placed by tab-stop.ts, O(1)
  * per drawing, so redrawing on every keystroke stays cheap; this module is
- * loaded when a chart is first reached, and its O(cells) work (roles on
- * every row and cell, the navigation index) runs once per drawing, when the
- * keyboard first enters the grid ({@link ChartGrid.prepare}). Names are
- * computed for the focused cell only.
+ * fetched once a chart is drawn (useChartGrid.ts), and its O(cells) work
+ * (reading the navigation index, no writes) runs once per drawing, when the
+ * keyboard first enters the grid ({@link ChartGrid.prepare}). Roles, names
+ * and positions are written for the focused cell only.
  *
  * Arrow keys move as the drawing looks: Up is the next round (drawn above),
  * Left and Right follow the columns on screen. Home/End go to the ends of
