@@ -49,7 +49,8 @@ import { getParser, type ParseError } from './notation/parser';
 import { buildAst, type RoundLineMemo } from './notation/to-ast';
 import type { Graded, NameRef, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { makeDiagnostic, sortDiagnostics } from './diagnostics';
-import { checkPatternTraced, ResumeMiss, type CheckOutput, type CheckTrace, type NodeMap, type SourceTable } from './check';
+import { checkPatternTraced, type CheckOutput, type CheckTrace, type NodeMap, type SourceTable } from './check';
+import { createResumer, ResumeMiss } from './check/resume';
 
 /** What one incremental compile reused. */
 export interface IncrementalStats {
@@ -499,7 +500,12 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     }
     const map: NodeMap = { node, srcMap };
     const firstLineSame = p.rounds.length === 0 ? ast.rounds.length === 0 : node(p.rounds[0]) === (ast.rounds[0] ?? null);
-    return { map, firstLineSame, traces: prev.trace.sizes };
+    return {
+      resumerFor: (size: string) => {
+        const trace = prev.trace.sizes.get(size);
+        return trace ? createResumer({ trace, map, firstLineSame }) : undefined;
+      },
+    };
   }
 
   return {

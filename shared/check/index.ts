@@ -16,11 +16,11 @@ import { planRounds } from './plan';
 import { workRounds, type RoundRecord } from './round';
 import { checkBackingClosed, formatRounds } from './backing';
 import type { StitchStore } from './store';
-import type { NodeMap, SizeTrace } from './resume';
+import type { RoundsResumer, SizeTrace } from './resume';
 
 export { FLAG, StitchStore } from './store';
 export { SourceTable } from './sources';
-export { ResumeMiss, type NodeMap, type SizeTrace } from './resume';
+export type { NodeMap, SizeTrace, RoundsResumer } from './resume';
 export { LIMITS } from './context';
 export { ONE_SIZE, DEFAULT_YARN } from './header';
 export { formatRounds } from './backing';
@@ -72,7 +72,7 @@ export interface CheckIncremental {
    * compile's objects map to this one's and its traces, or null to work
    * every round.
    */
-  prepare(sources: SourceTable): { map: NodeMap; firstLineSame: boolean; traces: Map<string, SizeTrace> } | null;
+  prepare(sources: SourceTable): { resumerFor(size: string): RoundsResumer | undefined } | null;
 }
 
 /** CheckOutput plus what the incremental compiler needs. */
@@ -129,10 +129,9 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
     let records: RoundRecord[] = [];
     if (castOnCount < 0) ctx.report('LW103', ast.castOn!.count.span, { what: 'a cast-on', need: '0 or more stitches', value: castOnCount });
     if (planned) {
-      const old = prepared?.traces.get(size);
       const worked = workRounds(m, ast, planned.rounds, planned.ranges, { count: Math.max(0, castOnCount), yarn: castOnYarn, src: 0 }, flat, {
         record: incremental !== null,
-        resume: old && prepared ? { trace: old, map: prepared.map, firstLineSame: prepared.firstLineSame } : undefined,
+        resume: prepared?.resumerFor(size),
       });
       records = worked.records;
       if (worked.trace) traces.set(size, worked.trace);

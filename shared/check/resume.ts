@@ -250,3 +250,76 @@ export function sameState(
   }
   return true;
 }
+
+/** Where workRounds keeps what it builds (resume.ts fills them in). */
+export interface RoundsSink { records: RoundRecord[]; checkpoints: Checkpoint[]; repeats: boolean[] }
+/** The fold's state before a round, as workRounds keeps it. */
+export interface FoldState { prevOff: number; prevLen: number; prevMarkers: MarkerPos[]; prevStable: boolean }
+
+/** What workRounds asks of a trace (created by createResumer; workRounds itself does not import this module's code). */
+export interface RoundsResumer {
+  /** The plan indexes that differ from the trace's plan; `first` is 0 when nothing can be taken before them. */
+  changed(plan: PlannedRound[]): { first: number; last: number };
+  /** Takes rounds [0, start) from the trace into the machine and the sink; returns the fold's state before `start`. */
+  restore(m: Machine, start: number, into: RoundsSink): FoldState;
+  /**
+   * When the machine before plan index `pi` is in the state the trace had
+   * there, takes the rest of the trace's rounds and returns how many; else 0.
+   */
+  splice(m: Machine, pi: number, now: FoldState, into: RoundsSink & { events: number; reports: number; planLength: number }): number;
+}
+
+/** A resumer over a trace, or undefined when the trace cannot be resumed (its size hit a bound). */
+export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
+  const t = from.trace, map = from.map;
+  if (t.aborted || t.checkpoints.length === 0) return undefined;
+  // Store offsets below this hold stitches identical in both compiles (the cast-on, or the restored rounds).
+  let prefixLen = t.checkpoints[0].storeLen;
+  return {
+    changed(plan) {
+      const c = changedRounds(t.plan, plan, map, from.firstLineSame);
+      return { first: c.first > 0 && c.first < t.checkpoints.length ? c.first : 0, last: c.last };
+    },
+    restore(m, start, into) {
+      const cp = t.checkpoints[start];
+      copyStitches(m.store, t.store, 0, cp.storeLen, map.srcMap);
+      copyColumns(m, t.columns, 0, cp.columns, map);
+      replayEvents(m, t.events, 0, cp.events, map);
+      replayReports(m, t.reports, 0, cp.reports, map);
+      for (let i = 0; i < start; i++) {
+        into.records.push(mapRecord(t.records[i], map, null));
+        into.checkpoints.push(t.checkpoints[i]);
+        into.repeats.push(t.repeats[i]);
+      }
+      m.logical = cp.logical; m.steps = cp.steps;
+      prefixLen = cp.storeLen;
+      return { prevOff: cp.prevOff, prevLen: cp.prevLen, prevMarkers: cp.prevMarkers, prevStable: cp.prevStable };
+    },
+    splice(m, pi, now, into) {
+      if (!sameState(m, { ...now, repeats: into.repeats }, pi, from)) return 0;
+      const cp = t.checkpoints[pi];
+      const d = m.store.length - cp.storeLen, dEvents = into.events - cp.events, dReports = into.reports - cp.reports;
+      const offset = (o: number): number => {
+        if (o >= cp.storeLen) return o + d;
+        if (o === cp.prevOff) return now.prevOff;
+        if (o < prefixLen) return o;
+        throw new ResumeMiss('a round shares stitches that were worked again');
+      };
+      copyStitches(m.store, t.store, cp.storeLen, t.store.length, map.srcMap);
+      copyColumns(m, t.columns, cp.columns, t.columns.length, map);
+      replayEvents(m, t.events, cp.events, t.events.length, map);
+      replayReports(m, t.reports, cp.reports, t.reports.length, map);
+      for (let i = pi; i < t.records.length; i++) into.records.push(mapRecord(t.records[i], map, offset));
+      for (let i = pi; i < t.checkpoints.length; i++) {
+        const c = t.checkpoints[i];
+        const po = offset(c.prevOff);
+        into.checkpoints[i] = d === 0 && dEvents === 0 && dReports === 0 && po === c.prevOff ? c
+          : { ...c, storeLen: c.storeLen + d, events: c.events + dEvents, reports: c.reports + dReports, prevOff: po };
+        if (i > pi && i < into.planLength) into.repeats[i] = t.repeats[i];
+      }
+      const last = t.checkpoints[t.checkpoints.length - 1];
+      m.logical = last.logical; m.steps = last.steps;
+      return t.records.length - pi;
+    },
+  };
+}

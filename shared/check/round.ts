@@ -15,10 +15,7 @@ import { FLAG } from './store';
 import type { PlannedRound, LineRange } from './plan';
 import type { ReportCall } from './context';
 import type { MachineEvent } from './machine';
-import {
-  changedRounds, copyColumns, copyStitches, mapRecord, replayEvents, replayReports, ResumeMiss, sameState,
-  type Checkpoint, type ResumeFrom, type SizeTrace,
-} from './resume';
+import type { Checkpoint, RoundsResumer, SizeTrace } from './resume';
 
 /** One worked round as the model keeps it. */
 export interface RoundRecord {
@@ -67,8 +64,8 @@ function segmentsOf(rsMarkers: readonly MarkerPos[], len: number, ws: boolean): 
 export interface WorkRoundsOptions {
   /** Record the fold into a trace (returned as `trace`). */
   record?: boolean;
-  /** Take what it can from an earlier compile's trace. */
-  resume?: ResumeFrom;
+  /** Takes what it can from an earlier compile's trace (resume.ts createResumer). */
+  resume?: RoundsResumer;
 }
 
 /** What workRounds did, for the incremental compiler. */
@@ -85,7 +82,7 @@ export function workRounds(
   const records: RoundRecord[] = [];
   const { ctx, store } = m;
   const stats: WorkRoundsStats = { reusedRounds: 0, workedRounds: 0 };
-  const resume = options.resume && !options.resume.trace.aborted ? options.resume : undefined;
+  const resume = options.resume;
   const recording = options.record === true || resume !== undefined;
   const reports: ReportCall[] = [];
   const events: MachineEvent[] = [];
@@ -104,14 +101,8 @@ export function workRounds(
   const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));
 
   // The rounds before the first changed one come from the trace (resume.ts).
-  let start = 0;
-  let changedLast = -1;
-  let prefixLen = castOn.count;
-  if (resume) {
-    const changed = changedRounds(resume.trace.plan, plan, resume.map, resume.firstLineSame);
-    changedLast = changed.last;
-    if (changed.first > 0 && changed.first < resume.trace.checkpoints.length) start = changed.first;
-  }
+  const range = resume ? resume.changed(plan) : { first: 0, last: -1 };
+  const start = range.first;
   // Room for every round at the cast-on width (plus a little for shaping and backing), to grow rarely.
   const expected = Math.min(castOn.count * (plan.length + 1) * 1.1 + 1024, LIMITS.stitchesPerSize * 1.05) | 0;
   let prevOff = 0, prevLen = castOn.count, prevMarkers: MarkerPos[] = [], prevSide: 'RS' | 'WS' = flat ? 'WS' : 'RS';
@@ -119,22 +110,10 @@ export function workRounds(
   let prevStable = false;
   let lastKey: string | null = null; // the key of the plan entry before the current one
   if (start > 0) {
-    const t = resume!.trace, map = resume!.map, cp = t.checkpoints[start];
     m.store.reserve(expected);
-    copyStitches(store, t.store, 0, cp.storeLen, map.srcMap);
-    copyColumns(m, t.columns, 0, cp.columns, map);
-    replayEvents(m, t.events, 0, cp.events, map);
-    replayReports(m, t.reports, 0, cp.reports, map);
-    for (let i = 0; i < start; i++) {
-      records.push(mapRecord(t.records[i], map, null));
-      checkpoints.push(t.checkpoints[i]);
-      repeats.push(t.repeats[i]);
-    }
-    m.logical = cp.logical; m.steps = cp.steps;
-    prevOff = cp.prevOff; prevLen = cp.prevLen; prevMarkers = cp.prevMarkers; prevStable = cp.prevStable;
+    ({ prevOff, prevLen, prevMarkers, prevStable } = resume!.restore(m, start, { records, checkpoints, repeats }));
     prevKey = keyOf(start - 1);
     lastKey = prevKey;
-    prefixLen = cp.storeLen;
     stats.reusedRounds += start;
   } else {
     // The cast-on is stored first, as the needle before round 1 (not a round).
@@ -159,33 +138,10 @@ export function workRounds(
     const key = keyOf(pi);
     repeats[pi] = key !== null && key === lastKey;
     lastKey = key;
-    if (resume && pi > changedLast && sameState(m, { prevOff, prevLen, prevMarkers, prevStable, repeats }, pi, resume)) {
-      // Back in the state the earlier compile had here: the rest is the same (resume.ts).
-      const t = resume.trace, map = resume.map, cp = t.checkpoints[pi];
-      const d = store.length - cp.storeLen, dEvents = events.length - cp.events, dReports = reports.length - cp.reports;
-      const newPrevOff = prevOff;
-      const offset = (o: number): number => {
-        if (o >= cp.storeLen) return o + d;
-        if (o === cp.prevOff) return newPrevOff;
-        if (o < prefixLen) return o;
-        throw new ResumeMiss('a round shares stitches that were worked again');
-      };
-      copyStitches(store, t.store, cp.storeLen, t.store.length, map.srcMap);
-      copyColumns(m, t.columns, cp.columns, t.columns.length, map);
-      replayEvents(m, t.events, cp.events, t.events.length, map);
-      replayReports(m, t.reports, cp.reports, t.reports.length, map);
-      for (let i = pi; i < t.records.length; i++) records.push(mapRecord(t.records[i], map, offset));
-      for (let i = pi; i < t.checkpoints.length; i++) {
-        const c = t.checkpoints[i];
-        const po = offset(c.prevOff);
-        checkpoints[i] = d === 0 && dEvents === 0 && dReports === 0 && po === c.prevOff ? c
-          : { ...c, storeLen: c.storeLen + d, events: c.events + dEvents, reports: c.reports + dReports, prevOff: po };
-        if (i > pi && i < plan.length) repeats[i] = t.repeats[i];
-      }
-      const last = t.checkpoints[t.checkpoints.length - 1];
-      m.logical = last.logical; m.steps = last.steps;
-      stats.reusedRounds += t.records.length - pi;
-      return done();
+    if (resume && pi > range.last) {
+      // Back in the state the earlier compile had here? Then the rest is the same (resume.ts).
+      const taken = resume.splice(m, pi, { prevOff, prevLen, prevMarkers, prevStable }, { records, checkpoints, repeats, events: events.length, reports: reports.length, planLength: plan.length });
+      if (taken > 0) { stats.reusedRounds += taken; return done(); }
     }
     if (recording) checkpoints[pi] = checkpoint();
     stats.workedRounds++;
