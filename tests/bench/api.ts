@@ -5,11 +5,13 @@
  * process), against the same server in the same run.
  *
  * One tail latency of one short load is noisy on a shared 2-core machine
- * (a single GC pause or another process's burst moves a p99 by 2x), so the
- * figure is the median over several rounds. Each round loads health and the
- * pattern one after the other, alternating which goes first, and gives one
- * ratio; a warm-up of both comes before the first round. The spread of the
- * round ratios is reported beside the median.
+ * (a single GC pause or another process's burst moves a p99 by 2x). So the
+ * routes are loaded in several rounds after a warm-up of both; each round
+ * loads health and the pattern one after the other, alternating which goes
+ * first, so both routes see the same spread of machine conditions. The
+ * figure is the p99 of all answers of all rounds of the pattern read over
+ * the same for health; the ratio of each round alone is reported beside it,
+ * with the app's CPU time per request of each route.
  *
  * Everything is private and on loopback: its own MariaDB (`.data/bench`,
  * port 3319 unless BENCH_DB_PORT), a fake SMTP server on a free port, the
@@ -20,10 +22,8 @@ import { execFile } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { createServer } from 'node:http';
-import { createRequire } from 'node:module';
 import path from 'node:path';
 import { promisify } from 'node:util';
-import type autocannon from 'autocannon';
 import { createApp } from '../../server/app.ts';
 import { createSequelize } from '../../server/db/connection.ts';
 import { startPrivateMariaDB } from '../../server/db/launcher.ts';
@@ -33,7 +33,6 @@ import { createMailer } from '../../server/mail/mailer.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
 const run = promisify(execFile);
-const cli = path.join(path.dirname(createRequire(import.meta.url).resolve('autocannon/package.json')), 'autocannon.js');
 
 /** One autocannon run, reduced to what the bench reports (latencies in ms). */
 export interface LoadRun {
@@ -65,18 +64,22 @@ export interface ApiBenchOptions {
  */
 export const API_BENCH_DEFAULTS: ApiBenchOptions = { seconds: 4, connections: 100, rounds: 7, warmupSeconds: 3 };
 
-/** Medians over the rounds of one route's figures (each median taken on its own). */
-export interface RouteSummary { p99: number; p50: number; requestsPerSecond: number; serverCpuMsPerRequest: number }
+/**
+ * One route over all rounds: p50 and p99 of every 2xx answer of every round
+ * taken together (ms), and medians over the rounds of requests per second
+ * and app CPU per request.
+ */
+export interface RouteSummary { p50: number; p99: number; answers: number; requestsPerSecond: number; serverCpuMsPerRequest: number }
 
-/** The API figure: the median round ratio, the spread, and every round. */
+/** The API figure: pooled p99 of the pattern read over pooled p99 of health, the per-round ratios beside it, and every round. */
 export interface ApiFigure {
   connections: number;
   seconds: number;
   rounds: ApiRound[];
-  /** Median of the round ratios: the headline `apiP99VsHealth`. */
+  /** The headline `apiP99VsHealth`: pattern.p99 / health.p99, each over all rounds' answers together. */
   p99Ratio: number;
-  /** Lowest and highest round ratio. */
-  spread: { min: number; max: number };
+  /** The ratio of each round alone: median, lowest and highest (how much one round can say). */
+  roundRatios: { median: number; min: number; max: number };
   /** Median over the rounds of the app's CPU per pattern request over its CPU per health request (a cross-check less moved by other work). */
   cpuRatio: number;
   health: RouteSummary;
@@ -86,22 +89,23 @@ export interface ApiFigure {
 /** A running private stack with one designer and the Lantern Mitts pattern. */
 export interface ApiStack { url: string; auth: Record<string, string>; patternPath: string; stop(): Promise<void> }
 
+/** One load's summary and the response time of each of its 2xx answers (ms). */
+export interface LoadResult { run: LoadRun; times: number[] }
+
+const loadChild = path.join(import.meta.dirname, 'api-load.ts');
+
 /**
- * One autocannon run in its own process (the autocannon CLI with --json), so the load
- * generator does not share the server's event loop.
+ * One autocannon run in its own process (api-load.ts, started with this
+ * process's own loader flags), so the load generator does not share the
+ * server's event loop.
  */
-export async function load(url: string, urlPath: string, seconds: number, connections: number, headers: Record<string, string>): Promise<LoadRun> {
-  const args = [cli, '-c', String(connections), '-d', String(seconds), '--json'];
-  for (const [k, v] of Object.entries(headers)) args.push('-H', `${k}=${v}`);
-  args.push(url + urlPath);
+export async function load(url: string, urlPath: string, seconds: number, connections: number, headers: Record<string, string>): Promise<LoadResult> {
   const cpu = process.cpuUsage();
-  const { stdout } = await run(process.execPath, args, { maxBuffer: 16 * 1024 * 1024 });
+  const { stdout } = await run(process.execPath, [...process.execArgv, loadChild, JSON.stringify({ url: url + urlPath, seconds, connections, headers })], { maxBuffer: 64 * 1024 * 1024 });
   const used = process.cpuUsage(cpu);
-  const r = JSON.parse(stdout) as autocannon.Result;
-  return {
-    path: urlPath, p50: r.latency.p50, p99: r.latency.p99, requestsPerSecond: r.requests.average, requests: r.requests.total,
-    non2xx: r.non2xx, errors: r.errors + r.timeouts, serverCpuMsPerRequest: (used.user + used.system) / 1000 / Math.max(1, r.requests.total),
-  };
+  const r = JSON.parse(stdout) as Omit<LoadRun, 'path' | 'serverCpuMsPerRequest'> & { times: number[] };
+  const { times, ...rest } = r;
+  return { run: { path: urlPath, ...rest, serverCpuMsPerRequest: (used.user + used.system) / 1000 / Math.max(1, r.requests) }, times };
 }
 
 async function json(res: Response): Promise<Record<string, unknown>> {
@@ -183,17 +187,23 @@ const median = (xs: number[]) => {
 };
 
 /** Fails the run when a load saw errors or non-2xx answers: its latencies would not be the route's. */
-function checked(r: LoadRun): LoadRun {
-  if (r.non2xx || r.errors) throw new Error(`bench: ${r.path} had ${r.non2xx} non-2xx answers and ${r.errors} errors or timeouts`);
+function checked(r: LoadResult): LoadResult {
+  if (r.run.non2xx || r.run.errors) throw new Error(`bench: ${r.run.path} had ${r.run.non2xx} non-2xx answers and ${r.run.errors} errors or timeouts`);
   return r;
+}
+
+/** The value below which `q` (0..1) of the sorted `xs` lie (nearest rank). */
+function quantile(sorted: Float64Array, q: number): number {
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1))];
 }
 
 /** Runs the warm-up and the rounds against a running stack (see the module comment). */
 export async function measureApiOn(stack: ApiStack, options: Partial<ApiBenchOptions> = {}): Promise<ApiFigure> {
   const o = { ...API_BENCH_DEFAULTS, ...options };
   const { url, auth, patternPath } = stack;
-  const health = () => load(url, '/api/health', o.seconds, o.connections, {}).then(checked);
-  const pattern = () => load(url, patternPath, o.seconds, o.connections, auth).then(checked);
+  const all = { health: [] as number[][], pattern: [] as number[][] };
+  const health = () => load(url, '/api/health', o.seconds, o.connections, {}).then(checked).then((r) => { all.health.push(r.times); return r.run; });
+  const pattern = () => load(url, patternPath, o.seconds, o.connections, auth).then(checked).then((r) => { all.pattern.push(r.times); return r.run; });
   if (o.warmupSeconds > 0) {
     await load(url, '/api/health', o.warmupSeconds, o.connections, {});
     await load(url, patternPath, o.warmupSeconds, o.connections, auth);
@@ -206,16 +216,22 @@ export async function measureApiOn(stack: ApiStack, options: Partial<ApiBenchOpt
     rounds.push({ first, health: h, pattern: p, ratio: p.p99 / h.p99 });
   }
   const ratios = rounds.map((r) => r.ratio);
-  const summary = (pick: (r: ApiRound) => LoadRun) => ({
-    p99: median(rounds.map((r) => pick(r).p99)), p50: median(rounds.map((r) => pick(r).p50)),
+  const pooled = (lists: number[][]) => {
+    const sorted = Float64Array.from(lists.flat()).sort();
+    return { p50: quantile(sorted, 0.5), p99: quantile(sorted, 0.99), answers: sorted.length };
+  };
+  const summary = (pick: (r: ApiRound) => LoadRun, times: number[][]): RouteSummary => ({
+    ...pooled(times),
     requestsPerSecond: median(rounds.map((r) => pick(r).requestsPerSecond)),
     serverCpuMsPerRequest: median(rounds.map((r) => pick(r).serverCpuMsPerRequest)),
   });
+  const h = summary((r) => r.health, all.health), p = summary((r) => r.pattern, all.pattern);
   return {
-    connections: o.connections, seconds: o.seconds, rounds, p99Ratio: median(ratios),
-    spread: { min: Math.min(...ratios), max: Math.max(...ratios) },
+    connections: o.connections, seconds: o.seconds, rounds,
+    p99Ratio: p.p99 / h.p99,
+    roundRatios: { median: median(ratios), min: Math.min(...ratios), max: Math.max(...ratios) },
     cpuRatio: median(rounds.map((r) => r.pattern.serverCpuMsPerRequest / r.health.serverCpuMsPerRequest)),
-    health: summary((r) => r.health), pattern: summary((r) => r.pattern),
+    health: h, pattern: p,
   };
 }
 
@@ -232,10 +248,13 @@ export async function measureApi(options: Partial<ApiBenchOptions> = {}): Promis
 /** One line per round and the headline, for the printed bench output. */
 export function formatApiFigure(f: ApiFigure): string {
   const run = (r: LoadRun) => `p99 ${r.p99} ms, p50 ${r.p50} ms, ${Math.round(r.requestsPerSecond)} req/s, app CPU ${r.serverCpuMsPerRequest.toFixed(2)} ms/req`;
+  const all = (r: RouteSummary) => `p99 ${r.p99.toFixed(0)} ms, p50 ${r.p50.toFixed(0)} ms over ${r.answers} answers`;
   return [
-    `API load: ${f.rounds.length} rounds of ${f.seconds} s per route at ${f.connections} connections (after a warm-up of both); figure = median of the round ratios`,
+    `API load: ${f.rounds.length} rounds of ${f.seconds} s per route at ${f.connections} connections, alternating which route goes first, after a warm-up of both`,
     ...f.rounds.map((r, i) => `  round ${i + 1} (${r.first} first): pattern ${run(r.pattern)} | health ${run(r.health)} | ratio ${r.ratio.toFixed(2)}`),
-    `apiP99VsHealth ${f.p99Ratio.toFixed(2)} (median; rounds ${f.spread.min.toFixed(2)} to ${f.spread.max.toFixed(2)}), goal <= 3; ` +
+    `  all rounds together: pattern ${all(f.pattern)} | health ${all(f.health)}`,
+    `apiP99VsHealth ${f.p99Ratio.toFixed(2)} (p99 of all rounds' answers of each route), goal <= 3; ` +
+      `single rounds: median ${f.roundRatios.median.toFixed(2)}, ${f.roundRatios.min.toFixed(2)} to ${f.roundRatios.max.toFixed(2)}; ` +
       `app CPU per request, pattern over health: ${f.cpuRatio.toFixed(2)} (median)`,
   ].join('\n');
 }
