@@ -90,7 +90,7 @@ describe('chart cells by keyboard', () => {
     await page.keyboard.press('ArrowLeft');
     expect(await focusedName(page)).toBe('Round 3, stitch 3: k, yarn B Foam');
     // The description says what the symbol means and what Enter does.
-    expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-description'))).toMatch(/Enter: go to the line/);
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-description'))).toMatch(/Enter: go to its line/);
 
     // The ring is drawn around the focused cell.
     const ring = await chart.getByTestId('chart-focus').boundingBox();

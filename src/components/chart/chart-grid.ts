@@ -172,6 +172,8 @@ export class ChartGrid {
     const { name, description } = this.describe(cell);
     markTabStop(cell, this.group ?? this.svg, this.active, name);
     cell.setAttribute('aria-description', description);
+    // The grid draws its own ring over the chart; the page's outline would be painted inside the SVG.
+    (cell as SVGElement).style.outline = 'none';
     const at = this.at.get(cell);
     if (at && this.rows) {
       // Row 1 is round 1 (the rows' order in the page); columns count from the left as drawn.

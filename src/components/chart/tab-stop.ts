@@ -59,15 +59,7 @@ export function markTabStop(cell: Element, group: Element, previous: Element | n
   const row = cell.parentElement;
   // Back view before the grid is prepared: the cell still sits directly in the grid group, which keeps its role.
   if (row && row !== group && row.getAttribute('role') !== 'row') row.setAttribute('role', 'row');
-  // The grid draws its own ring over the chart; the page's outline would be painted inside the SVG.
-  (cell as SVGElement).style.outline = 'none';
   cell.setAttribute('aria-label', name);
-}
-
-/** A short name ("Round 3, stitch 2") until the full one is computed on focus. */
-export function shortName(cell: Element, word: string): string {
-  const stitch = cell.getAttribute('data-stitch');
-  return `${word} ${roundOf(cell)}${stitch ? `, stitch ${stitch}` : ''}`;
 }
 
 /**
@@ -83,6 +75,7 @@ export function placeTabStop(svg: SVGSVGElement, label: string, word: string, sp
   svg.setAttribute('role', 'group');
   group.setAttribute('role', 'grid');
   group.setAttribute('aria-label', label);
-  markTabStop(cell, group, null, shortName(cell, word));
+  // A plain name until chart-grid.ts gives the full one (it is loaded before the keyboard usually gets here).
+  markTabStop(cell, group, null, `${word} ${roundOf(cell)}`);
   return cell;
 }

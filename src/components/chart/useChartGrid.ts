@@ -8,7 +8,7 @@
  *
  * The grid's moving and naming code (chart-grid.ts) is not needed to show
  * a chart, so it is fetched once a chart is drawn and the page is idle (or
- * sooner, when the pointer or the keyboard reaches the chart); keys pressed
+ * sooner, when the keyboard or a click reaches the chart); keys pressed
  * before it arrives wait for it. Once loaded, the focused cell is named in
  * the same task as the focus moves, before assistive technology reads it.
  *
@@ -18,7 +18,7 @@
  */
 import { useCallback, useEffect, useRef, type RefObject } from 'react';
 import type { ChartGrid, ChartGridOptions } from './chart-grid';
-import { findCell, markTabStop, placeTabStop, shortName, type GridSpot } from './tab-stop';
+import { placeTabStop, type GridSpot } from './tab-stop';
 
 export interface UseChartGridOptions extends ChartGridOptions {
   /** Changes whenever a new SVG is in the holder (e.g. the SVG string itself); null: nothing drawn. */
@@ -44,7 +44,7 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
   useEffect(() => { latest.current = opts; });
   const { drawing, word, label, hint } = opts;
   // By content: a new compile hands over an equal list as a new array, which must not rebuild the grid.
-  const yarnKey = JSON.stringify(opts.yarns ?? null);
+  const yarnKey = JSON.stringify(opts.yarns);
 
   /** The grid of the current drawing, loading its module the first time. */
   const gridNow = useCallback(async (): Promise<ChartGrid | null> => {
@@ -70,10 +70,8 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
     if (!tabStop) return;
     const d: Drawn = { svg, tabStop, grid: null };
     drawn.current = d;
-    if (!gridModule) {
-      if (typeof requestIdleCallback === 'function') requestIdleCallback(() => void loadGridModule(), { timeout: 2000 });
-      else setTimeout(() => void loadGridModule(), 500);
-    }
+    // Safari has no requestIdleCallback: there the module comes on the next turn.
+    if (!gridModule) (window.requestIdleCallback ?? setTimeout)(() => void loadGridModule());
     if (focused.current && (!document.activeElement || document.activeElement === document.body)) (tabStop as SVGElement).focus();
     return () => {
       spot.current = d.grid?.spot() ?? spot.current;
@@ -86,15 +84,13 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
   // A new start round (the knitter's current round moved on) takes the tab stop along, unless the keyboard is in the grid.
   const { startRound = null } = opts;
   useEffect(() => {
-    const d = drawn.current;
-    if (!d || focused.current || startRound === null) return;
-    if (d.grid) { d.grid.startAt(startRound); spot.current = d.grid.spot(); return; }
-    const group = d.svg.querySelector('g.cells');
-    const cell = group ? findCell(group, null, startRound) : null;
-    if (!group || !cell || cell === d.tabStop) return;
-    markTabStop(cell, group, d.tabStop, shortName(cell, word));
-    d.tabStop = cell;
-  }, [startRound, drawing, word]);
+    if (startRound === null) return;
+    void gridNow().then((g) => {
+      if (!g || focused.current) return;
+      g.startAt(startRound);
+      spot.current = g.spot();
+    });
+  }, [startRound, drawing, gridNow]);
 
   useEffect(() => {
     const el = holder.current;
@@ -104,7 +100,7 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
       const target = e.target;
       if (!isCell(target) || e.altKey || e.metaKey) return;
       const activate = e.key === 'Enter' || e.key === ' ';
-      const move = ['ArrowLeft', 'ArrowRight', 'ArrowUp', 'ArrowDown', 'Home', 'End', 'PageUp', 'PageDown'].includes(e.key);
+      const move = /^(Arrow(Left|Right|Up|Down)|Home|End|Page(Up|Down))$/.test(e.key);
       if (!activate && !move) return;
       e.preventDefault();
       const { key, ctrlKey } = e;
@@ -137,17 +133,13 @@ export function useChartGrid(holder: RefObject<HTMLElement | null>, opts: UseCha
       drawn.current?.grid?.hideRing();
       if (isCell(e.target)) latest.current.onFocusCell?.(null);
     };
-    // A pointer near the chart fetches the module at once, so a click rarely waits for it.
-    const warm = () => { void loadGridModule(); };
     el.addEventListener('keydown', onKey);
     el.addEventListener('focusin', onFocusIn);
     el.addEventListener('focusout', onFocusOut);
-    el.addEventListener('pointerenter', warm, { once: true });
     return () => {
       el.removeEventListener('keydown', onKey);
       el.removeEventListener('focusin', onFocusIn);
       el.removeEventListener('focusout', onFocusOut);
-      el.removeEventListener('pointerenter', warm);
     };
   }, [holder, gridNow]);
 

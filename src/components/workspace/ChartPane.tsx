@@ -81,7 +81,7 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, yarns, settings
     word,
     yarns,
     label: `Chart of size ${chart?.size ?? size}, ${sideWords}`,
-    hint: 'Enter: go to the line that makes it.',
+    hint: 'Enter: go to its line.',
     onActivate: jumpFrom,
     onFocusCell: setHover,
   });
@@ -147,7 +147,7 @@ export const ChartPane = memo(function ChartPane({ chart, sizes, yarns, settings
         )}
       </div>
       <div className="flex h-7 shrink-0 items-center border-t border-tide-200 px-4 text-caption text-tide-700" aria-live="off">
-        {hover ?? 'Point at a stitch to see what it is; click to go to its line. Keyboard: Tab into the chart, then arrow keys and Enter.'}
+        {hover ?? 'Point at a stitch to see what it is; click (or Enter) to go to its line.'}
       </div>
     </div>
   );

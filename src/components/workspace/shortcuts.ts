@@ -39,9 +39,8 @@ export const SHORTCUTS: readonly Shortcut[] = [
   { keys: ['Tab'], label: 'Leave the editor for the next control', group: 'Editing' },
   { keys: ['F1'], label: 'Show this list (or ? outside the editor)', group: 'Editing' },
   // In the chart pane, once Tab has reached the chart (components/chart/useChartGrid.ts).
-  { keys: ['←', '→', '↑', '↓'], label: 'Move between stitches (↑ is the next round)', group: 'Chart' },
-  { keys: ['Home', 'End'], label: 'First or last cell of the round on screen', group: 'Chart' },
-  { keys: ['Ctrl', 'Home'], label: 'Top-left cell (Ctrl+End: round 1, stitch 1)', group: 'Chart' },
+  { keys: ['←', '→', '↑', '↓'], label: 'Move between stitches', group: 'Chart' },
+  { keys: ['Home', 'End'], label: 'Ends of the round (with Ctrl: of the chart)', group: 'Chart' },
   { keys: ['PgUp', 'PgDn'], label: 'Ten rounds up or down', group: 'Chart' },
-  { keys: ['Enter'], label: 'Go to the line that makes the stitch (or Space)', group: 'Chart' },
+  { keys: ['Enter'], label: 'Go to the stitch’s line', group: 'Chart' },
 ];
