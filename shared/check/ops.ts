@@ -8,6 +8,7 @@ import { OP, STITCHES, type Op, type StitchInfo, type ToSpec } from '../notation
 import type { Span } from '../types';
 import type { Machine } from './machine';
 import { FLAG } from './store';
+import { LIMITS } from './context';
 import type { ChartRow } from './charts';
 
 import { closestName, type Facts } from '../diagnostics';
@@ -144,6 +145,39 @@ function workChartRow(m: Machine, row: ChartRow, yarn: number): void {
   }
 }
 
+/** What a repeat pass that took and gave no stitch counted, and the machine's shape after it. */
+interface IdlePass { worked: number; missing: number; after: number[] }
+
+/**
+ * Everything besides the counts that a pass which takes and gives no stitch
+ * could still change: markers, segment and event cursors, catches, a held
+ * backing stitch, the problem flag.
+ */
+function machineShape(m: Machine): number[] {
+  return [m.mi, m.si, m.markersIn.length, m.markersOut.length, m.catchYarn.length, m.pendingClose, m.problem ? 1 : 0, m.nextEvent];
+}
+
+function sameShape(a: number[], b: number[]): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}
+
+/**
+ * Counts `k` more idle passes like `pass` as the loop would have: each adds
+ * its counts and one step; past the step bound the pass that crosses it
+ * still counts, then LW901 (Machine.step) ends the size.
+ */
+function skipIdlePasses(m: Machine, k: number, pass: IdlePass, span: Span): void {
+  if (k <= 0) return;
+  const room = Math.max(0, LIMITS.steps - m.steps);
+  const done = Math.min(k, room + 1);
+  m.worked += done * pass.worked;
+  m.missing += done * pass.missing;
+  if (done <= room) { m.steps += done; return; }
+  m.steps = LIMITS.steps + done - room - 1;
+  m.step(span);
+}
+
 /** Works an operation list over the current scope. */
 export function execOps(m: Machine, ops: readonly Op[], yarn: number): void {
   for (let i = 0; i < ops.length; i++) {
@@ -209,11 +243,24 @@ function execOp(m: Machine, op: Op, yarn: number): void {
           }
         }
       }
+      let idle: IdlePass | null = null; // the previous pass, when it took and gave nothing
       for (let r = 0; r < reps; r++) {
-        const pos = m.pos, out = m.store.length;
+        const pos = m.pos, out = m.store.length, worked = m.worked, missing = m.missing;
         execOps(m, op.ops, y);
         // Only passes that take and give nothing count against the step bound (they cannot run away otherwise).
-        if (m.pos === pos && m.store.length === out && !m.step(op.span)) return;
+        if (m.pos === pos && m.store.length === out) {
+          if (!m.step(op.span)) return;
+          const pass: IdlePass = { worked: m.worked - worked, missing: m.missing - missing, after: machineShape(m) };
+          if (idle && pass.worked === idle.worked && pass.missing === idle.missing && sameShape(idle.after, pass.after)) {
+            // This pass started where the one before ended, left the machine as it found it
+            // but for the counts, and counted what that one counted: every pass still to come
+            // is the same. Count them at once instead of looping (`(k1, close) 999999 times`
+            // on a used-up needle must not spin).
+            skipIdlePasses(m, reps - r - 1, pass, op.span);
+            return;
+          }
+          idle = pass;
+        } else idle = null;
         if (m.aborted) return;
       }
       return;

@@ -30,7 +30,8 @@ const caches = new WeakMap<Map<string, PreparedChart>, WeakMap<RoundLine, boolea
 export function roundKey(p: PlannedRound, charts: Map<string, PreparedChart>): string | null {
   if (p.ladders.some((l) => l.phase !== 'work')) return null;
   const lines = p.whole ? [p.whole] : [...p.segments.values()];
-  if (lines.length === 0) return null;
+  // A round no line gives (LW209) passes the needle through unworked: rounds of a gap share too.
+  if (lines.length === 0) return `-/${p.ladders.map((l) => l.ladder.span.from).join(',')}`;
   let cache = caches.get(charts);
   if (!cache) { cache = new WeakMap(); caches.set(charts, cache); }
   for (const l of lines) {
