@@ -13,9 +13,9 @@ import type { Severity } from '../types';
 /** Facts a message is built from; each code documents the keys it uses. */
 export type Facts = Record<string, string | number>;
 
+/** One code: the comment above each entry in the list is its title (grammar/diagnostics.md has the paragraph). */
 export interface CodeInfo {
   code: string;
-  title: string;
   severity: Severity;
   message: (f: Facts) => string;
   hint?: (f: Facts) => string | undefined;
@@ -25,95 +25,131 @@ const s = (n: string | number, one: string, many = `${one}s`) => `${n} ${Number(
 const where = (f: Facts) => (f.segment ? ` in segment ${f.segment}` : '');
 
 const list: CodeInfo[] = [
-  { code: 'LW101', title: 'Unreadable characters', severity: 'error',
+  // Unreadable characters
+  { code: 'LW101', severity: 'error',
     message: (f) => `cannot read ${f.text}`, hint: () => 'stitch words, numbers, names, "quoted text", #rrggbb colours and |chart rows| are what a source is made of' },
-  { code: 'LW102', title: 'Unexpected word', severity: 'error', message: (f) => String(f.detail),
+  // Unexpected word
+  { code: 'LW102', severity: 'error', message: (f) => String(f.detail),
     hint: (f) => (f.hint ? String(f.hint) : undefined) },
-  { code: 'LW103', title: 'Not a usable number', severity: 'error',
+  // Not a usable number
+  { code: 'LW103', severity: 'error',
     message: (f) => `${f.what} must be ${f.need}, not ${f.value}` },
-  { code: 'LW104', title: 'Unknown stitch combination', severity: 'error',
+  // Unknown stitch combination
+  { code: 'LW104', severity: 'error',
     message: (f) => `'${f.text}' is not a stitch the notation knows`, hint: (f) => (f.hint ? String(f.hint) : undefined) },
-  { code: 'LW201', title: 'Graded list does not match the sizes', severity: 'error',
+  // Graded list does not match the sizes
+  { code: 'LW201', severity: 'error',
     message: (f) => `this graded number has ${s(f.count, 'value')} but the pattern has ${s(f.sizes, 'size')}`,
     hint: (f) => `write one value per size (${f.sizeNames}), separated by '/'` },
-  { code: 'LW202', title: 'Unknown yarn', severity: 'error',
+  // Unknown yarn
+  { code: 'LW202', severity: 'error',
     message: (f) => `there is no yarn called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : `declare it: yarn ${f.name} "label" #rrggbb`) },
-  { code: 'LW203', title: 'Unknown chart', severity: 'error',
+  // Unknown chart
+  { code: 'LW203', severity: 'error',
     message: (f) => `there is no chart called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : `define it with a block "chart ${f.name}:", its key and its rows`) },
-  { code: 'LW204', title: 'Unknown segment', severity: 'error',
+  // Unknown segment
+  { code: 'LW204', severity: 'error',
     message: (f) => `round ${f.round} has no segment called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => (f.known ? `segments on the needle then: ${f.known}` : 'a segment starts at a marker placed with "mark NAME"') },
-  { code: 'LW205', title: 'Unknown marker', severity: 'error',
+  // Unknown marker
+  { code: 'LW205', severity: 'error',
     message: (f) => `round ${f.round} reaches no marker called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => (f.known ? `markers on the needle: ${f.known}` : 'place it first with "mark NAME"') },
-  { code: 'LW206', title: 'Declared twice', severity: 'error',
+  // Declared twice
+  { code: 'LW206', severity: 'error',
     message: (f) => `${f.what} ${f.name} is declared twice`, hint: () => 'give each one its own name' },
-  { code: 'LW207', title: 'Missing cast on', severity: 'error',
+  // Missing cast on
+  { code: 'LW207', severity: 'error',
     message: () => 'the pattern never casts on', hint: () => 'add a line such as: cast on 96' },
-  { code: 'LW208', title: 'Unknown size', severity: 'error',
+  // Unknown size
+  { code: 'LW208', severity: 'error',
     message: (f) => `there is no size ${f.name}`, hint: (f) => `sizes: ${f.known}` },
-  { code: 'LW209', title: 'Round without instructions', severity: 'error',
+  // Round without instructions
+  { code: 'LW209', severity: 'error',
     message: (f) => `${f.word} ${f.round} has no instructions${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => `rounds are worked from 1 to ${f.last}; write ${f.word} ${f.round} or widen a range` },
-  { code: 'LW210', title: 'Chart key problem', severity: 'error', message: (f) => String(f.detail),
+  // Chart key problem
+  { code: 'LW210', severity: 'error', message: (f) => String(f.detail),
     hint: (f) => (f.hint ? String(f.hint) : undefined) },
-  { code: 'LW211', title: 'Mixed whole-round and segment instructions', severity: 'error',
+  // Mixed whole-round and segment instructions
+  { code: 'LW211', severity: 'error',
     message: (f) => `${f.word} ${f.round} has instructions for the whole round and for segment ${f.segment}`,
     hint: () => 'give every segment its own line for these rounds, or none' },
-  { code: 'LW212', title: 'Ladder range', severity: 'error',
+  // Ladder range
+  { code: 'LW212', severity: 'error',
     message: (f) => `a ladder needs at least two rounds: set up on the first and closed on the last (got ${f.first}-${f.last})` },
-  { code: 'LW213', title: 'Wrong side word', severity: 'warning',
+  // Wrong side word
+  { code: 'LW213', severity: 'warning',
     message: (f) => `this pattern is worked ${f.construction} but the line says ${f.word}`,
     hint: (f) => `write ${f.expected}` },
-  { code: 'LW214', title: 'Unknown item', severity: 'warning',
+  // Unknown item
+  { code: 'LW214', severity: 'warning',
     message: (f) => `"${f.word}" is not an item the finished size can be compared for`,
     hint: (f) => `write one of ${f.known}, or leave the item line out` },
-  { code: 'LW301', title: 'Count does not match the needle', severity: 'error',
+  // Count does not match the needle
+  { code: 'LW301', severity: 'error',
     message: (f) => `${f.word} ${f.round}${where(f)} works ${s(f.worked, 'stitch', 'stitches')} but ${f.onNeedle} ${Number(f.onNeedle) === 1 ? 'is' : 'are'} on the needle${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => {
       const d = Number(f.onNeedle) - Number(f.worked);
       return d > 0 ? `work ${s(d, 'more stitch', 'more stitches')}, or end with "k to end"` : `work ${s(-d, 'stitch', 'stitches')} fewer`;
     } },
-  { code: 'LW302', title: 'Repeat does not fit', severity: 'error',
+  // Repeat does not fit
+  { code: 'LW302', severity: 'error',
     message: (f) => `${f.word} ${f.round}${where(f)}: a repeat of ${s(f.repeat, 'stitch', 'stitches')} does not fit into ${f.available}, ${s(f.over, 'stitch', 'stitches')} left over${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => `add ${s(Number(f.repeat) - Number(f.over), 'stitch', 'stitches')}, take away ${f.over}, or change the repeat` },
-  { code: 'LW303', title: 'Too few stitches for the stitch', severity: 'error',
+  // Too few stitches for the stitch
+  { code: 'LW303', severity: 'error',
     message: (f) => `${f.word} ${f.round}${where(f)}: ${f.stitch} needs ${f.needs} stitches but only ${f.left} ${Number(f.left) === 1 ? 'is' : 'are'} left${f.size ? ` (size ${f.size})` : ''}` },
-  { code: 'LW304', title: 'Chart row wider than its segment', severity: 'error',
+  // Chart row wider than its segment
+  { code: 'LW304', severity: 'error',
     message: (f) => `chart ${f.chart} row ${f.row} is ${s(f.width, 'stitch', 'stitches')} wide but only ${f.available} ${Number(f.available) === 1 ? 'is' : 'are'} left in ${f.word} ${f.round}${where(f)}${f.size ? ` (size ${f.size})` : ''}` },
-  { code: 'LW305', title: 'Segment without instructions', severity: 'error',
+  // Segment without instructions
+  { code: 'LW305', severity: 'error',
     message: (f) => `${f.word} ${f.round}: segment ${f.segment} (${s(f.stitches, 'stitch', 'stitches')}) has no instructions${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => `add a line "${f.word}s ... at ${f.segment}: ..." for this ${f.word}` },
-  { code: 'LW306', title: 'Repeat that works no stitches', severity: 'error',
+  // Repeat that works no stitches
+  { code: 'LW306', severity: 'error',
     message: () => 'this repeat works no stitches, so it cannot be repeated to the end or to a marker', hint: () => 'give it a fixed number of times' },
-  { code: 'LW307', title: 'Marker not reached', severity: 'error',
+  // Marker not reached
+  { code: 'LW307', severity: 'error',
     message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}` },
-  { code: 'LW401', title: 'Backing stitch not worked', severity: 'error',
+  // Backing stitch not worked
+  { code: 'LW401', severity: 'error',
     message: (f) => `${f.word} ${f.round}: ${f.stitch} meets a backing stitch in ${f.yarn} and works it as a front stitch${f.size ? ` (size ${f.size})` : ''}`,
     hint: () => 'work it with "carry" (or let a ladder line work it), or close it with "close"' },
-  { code: 'LW402', title: 'Backing stitch closed twice', severity: 'error',
+  // Backing stitch closed twice
+  { code: 'LW402', severity: 'error',
     message: (f) => `${f.word} ${f.round}: this backing stitch was already closed in ${f.word} ${f.closedIn}${f.size ? ` (size ${f.size})` : ''}` },
-  { code: 'LW403', title: 'Backing stitch closed without a neighbour', severity: 'error',
+  // Backing stitch closed without a neighbour
+  { code: 'LW403', severity: 'error',
     message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}`,
     hint: () => 'a backing stitch closes together with the front stitch beside it (close = k2tog, close ssk)' },
-  { code: 'LW404', title: 'Backing stitch never closed', severity: 'error',
+  // Backing stitch never closed
+  { code: 'LW404', severity: 'error',
     message: (f) => `${s(f.count, 'backing stitch', 'backing stitches')} in ${f.yarn} set up here ${Number(f.count) === 1 ? 'is' : 'are'} still on the needle after the last ${f.word}${f.size ? ` (size ${f.size})` : ''}`,
     hint: () => 'close each one with "close" (or end the ladder) before the last round' },
-  { code: 'LW405', title: 'Nothing to close or carry', severity: 'error',
+  // Nothing to close or carry
+  { code: 'LW405', severity: 'error',
     message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}` },
-  { code: 'LW501', title: 'Float longer than the limit', severity: 'warning',
+  // Float longer than the limit
+  { code: 'LW501', severity: 'warning',
     message: (f) => `${f.rounds}: yarn ${f.yarn} floats behind ${f.stitches} stitches (${f.inches} in / ${f.cm} cm), longer than the ${f.limit} limit${f.size ? ` (size ${f.size})` : ''}`,
     hint: (f) => `catch ${f.yarn} every ${f.every} stitches or fewer, or add a backing column` },
-  { code: 'LW502', title: 'Yarn colours too alike', severity: 'warning',
+  // Yarn colours too alike
+  { code: 'LW502', severity: 'warning',
     message: (f) => `yarns ${f.first} and ${f.second} are hard to tell apart in a chart (colour difference ${f.deltaE}, below ${f.threshold})`,
     hint: () => 'choose colours further apart in lightness or hue' },
-  { code: 'LW503', title: 'No gauge: floats in stitches only', severity: 'info',
+  // No gauge: floats in stitches only
+  { code: 'LW503', severity: 'info',
     message: () => 'there is no gauge, so floats are not measured against the float limit', hint: () => 'add a line such as: gauge 28 sts and 32 rounds per 10 cm' },
-  { code: 'LW504', title: 'Unusable colour or gauge', severity: 'error', message: (f) => String(f.detail) },
-  { code: 'LW901', title: 'Pattern too large', severity: 'error',
+  // Unusable colour or gauge
+  { code: 'LW504', severity: 'error', message: (f) => String(f.detail) },
+  // Pattern too large
+  { code: 'LW901', severity: 'error',
     message: (f) => `${f.detail}${f.size ? ` (size ${f.size})` : ''}; stopped working further ${f.word}s`,
     hint: () => 'check for a repeat count or round number with too many digits' },
-  { code: 'LW902', title: 'More problems not shown', severity: 'info',
+  // More problems not shown
+  { code: 'LW902', severity: 'info',
     message: (f) => `${f.count} more problems of this kind (${f.code}) are not listed` },
 ];
 
