@@ -42,14 +42,14 @@
  * and result are kept.
  */
 import type { CstElement, CstNode, IToken, TokenType } from 'chevrotain';
-import type { Diagnostic, Span } from './types';
+import type { Diagnostic, RoundSummary, Span } from './types';
 import { compile, type CompileOptions, type CompileResult } from './index';
 import { lexSource, lexer, tokenSpan, spanAt, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
 import { getParser, type ParseError } from './notation/parser';
 import { buildAst, type RoundLineMemo } from './notation/to-ast';
 import type { Graded, NameRef, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { makeDiagnostic, sortDiagnostics } from './diagnostics';
-import { checkPatternTraced, type CheckOutput, type CheckTrace, type NodeMap, type SourceTable } from './check';
+import { checkPatternTraced, type CheckOutput, type CheckTrace, type NodeMap, type RoundRecord, type SourceTable } from './check';
 import { createResumer, ResumeMiss } from './check/resume';
 
 /** What one incremental compile reused. */
@@ -508,6 +508,16 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     };
   }
 
+  // Summaries of round records carried over from earlier checks (records are shared, so are their summaries).
+  const summaries = new WeakMap<RoundRecord, { yarns: string; summary: RoundSummary }>();
+  const summary = (r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary => {
+    const hit = summaries.get(r);
+    if (hit && hit.yarns === yarns) return hit.summary;
+    const made = make();
+    summaries.set(r, { yarns, summary: made });
+    return made;
+  };
+
   return {
     get lastStats() { return { ...stats }; },
     compile(source: string, options: CompileOptions = {}): CompileResult {
@@ -535,10 +545,10 @@ export function createIncrementalCompiler(): IncrementalCompiler {
         const canResume = prev !== null && prev.size === options.size && prev.hadSyntax === hadSyntax;
         let out;
         try {
-          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: (sources) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources) : null) });
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: (sources) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources) : null), summary });
         } catch (e) {
           if (!(e instanceof ResumeMiss)) throw e;
-          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null });
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summary });
         }
         checked = out;
         trace = out.trace;

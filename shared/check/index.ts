@@ -73,6 +73,8 @@ export interface CheckIncremental {
    * every round.
    */
   prepare(sources: SourceTable): { resumerFor(size: string): RoundsResumer | undefined } | null;
+  /** A round's summary: a record carried over keeps its summary (`yarns`: the yarn names, joined). */
+  summary(r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary;
 }
 
 /** CheckOutput plus what the incremental compiler needs. */
@@ -107,9 +109,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   sources.preassign(ast);
   const prepared = incremental?.prepare(sources) ?? null;
   const traces = new Map<string, SizeTrace>();
-  // Records the incremental compiler carries over keep their summaries too.
-  const summaries = incremental ? summaryCache : null;
-  const yarnsKey = head.yarns.join('\u0000');
+  const yarnsKey = incremental ? head.yarns.join('\u0000') : '';
   let reusedRounds = 0, workedRounds = 0;
   if (!ast.castOn) rep.report('LW207', origin, {});
   if (head.yarns.length > 1 && !head.gauge) rep.report('LW503', ast.header.yarns[0]?.span ?? origin, {});
@@ -144,22 +144,12 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
     sizes.push({
       name: size,
       castOn: Math.max(0, castOnCount),
-      rounds: records.map((r) => (summaries ? summarizeCached(r, head.yarns, yarnsKey, summaries) : summarize(r, head.yarns))),
+      rounds: records.map((r) => (incremental ? incremental.summary(r, yarnsKey, () => summarize(r, head.yarns)) : summarize(r, head.yarns))),
       stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns },
     });
   });
   const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };
   return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds } : out;
-}
-
-const summaryCache = new WeakMap<RoundRecord, { yarns: string; summary: RoundSummary }>();
-
-function summarizeCached(r: RoundRecord, yarns: string[], yarnsKey: string, cache: typeof summaryCache): RoundSummary {
-  const hit = cache.get(r);
-  if (hit && hit.yarns === yarnsKey) return hit.summary;
-  const summary = summarize(r, yarns);
-  cache.set(r, { yarns: yarnsKey, summary });
-  return summary;
 }
 
 function summarize(r: RoundRecord, yarns: string[]): RoundSummary {
