@@ -29,3 +29,35 @@ describe('huge counts on a short needle', () => {
     expect(lw301?.message).toContain('1000009');
   });
 });
+
+// A repeat whose passes take and give nothing once the needle is used up is
+// counted at once (shared/check/ops.ts skipIdlePasses); the result must be the
+// one working every pass gives (found by `npm run fuzz`: such repeats spun for
+// seconds before LW901).
+describe('repeats that run on after the needle is used up', () => {
+  const writtenOut = (n: number, body: string) => Array.from({ length: n }, () => body).join(', ');
+
+  it('counts the same as the same passes written out, whatever the number of passes', () => {
+    for (const n of [1, 2, 3, 4, 7]) {
+      const repeated = compile(`${header}round 1: k 10, (k1, close) ${n} times\n`);
+      const spelled = compile(`${header}round 1: k 10, ${writtenOut(n, 'k1, close')}\n`);
+      // The same problems (written out, each close is its own place, so each is reported)...
+      expect(new Set(repeated.diagnostics.map((d) => d.code))).toEqual(new Set(spelled.diagnostics.map((d) => d.code)));
+      // ...and the same round: stitches on the needle and stitches the operations asked for.
+      expect(repeated.sizes[0].rounds).toEqual(spelled.sizes[0].rounds.map((r, i) => ({ ...r, span: repeated.sizes[0].rounds[i].span })));
+      expect(repeated.sizes[0].stitches.rounds[0].worked).toBe(spelled.sizes[0].stitches.rounds[0].worked);
+    }
+  });
+
+  it('a million idle passes ask for 3 stitches each (k1 and close), as a loop would', () => {
+    const result = compile(`${header}round 1: k 10, (k1, close) 1000000 times\n`);
+    expect(result.sizes[0].stitches.rounds[0].worked).toBe(10 + 3 * 1_000_000);
+    expect(result.diagnostics.map((d) => d.code)).toEqual(['LW405']);
+  });
+
+  it('past 2,000,000 idle passes the size stops with LW901, as before', () => {
+    const result = compile(`${header}round 1: k 10, (k1, close) 9007199254740993 times\n`);
+    const lw901 = result.diagnostics.find((d) => d.code === 'LW901');
+    expect(lw901?.message).toContain('2,000,000 repeat passes that work no stitch');
+  });
+});
