@@ -8,16 +8,18 @@
  * their length in red.
  */
 import type { ChartModel } from './chart-model';
-import { columnNumbers, frameFor, heading, legend, legendWidth, markerLines, rowNumbers, spanAttrs, symbolDefs, type ChartDrawOptions } from './chart-frame';
+import { columnNumbers, frameFor, heading, headingWidth, legend, legendWidth, markerLines, rowNumbers, spanAttrs, symbolDefs, type ChartDrawOptions } from './chart-frame';
 import { gridLines } from './chart-svg';
 import { el, num, svgDocument, text } from './svg';
 
 const OVER = '#d62728';
 const BACK_NO_STITCH = '#9a9a9a';
 
+const BACK_VIEW = 'back of the work';
+
 /** Draws the back of the work: backing columns and floats. */
 export function renderBackSvg(model: ChartModel, options: ChartDrawOptions = {}): string {
-  const frame = frameFor(model, options, Math.max(legendWidth(model), 28 + 90 * 5.6));
+  const frame = frameFor(model, options, Math.max(legendWidth(model), 28 + 90 * 5.6, headingWidth(model, BACK_VIEW)));
   const c = frame.cell;
   const cells: string[] = [];
   const floats: string[] = [];
@@ -94,7 +96,7 @@ export function renderBackSvg(model: ChartModel, options: ChartDrawOptions = {})
   return svgDocument(frame.width, height, title, [
     symbolDefs(backSymbols, c),
     el('rect', { x: 0, y: 0, width: frame.width, height, fill: '#ffffff' }),
-    heading(model, frame, 'back of the work'),
+    heading(model, frame, BACK_VIEW),
     el('g', { class: 'cells' }, cells),
     gridLines(model.width, model.rows.length, frame),
     el('g', { class: 'floats' }, floats),

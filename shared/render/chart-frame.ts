@@ -73,8 +73,7 @@ export function symbolDefs(ids: readonly SymbolId[], cell: number): string {
   return el('defs', {}, parts);
 }
 
-/** Title line and a subtitle. */
-export function heading(model: ChartModel, frame: Frame, view: string): string {
+function headingLines(model: ChartModel, view: string): [string, string] {
   const title = `${model.title ?? 'Untitled pattern'}, size ${model.size}: ${view}`;
   const word = model.construction === 'flat' ? 'rows' : 'rounds';
   const reading = view.startsWith('back')
@@ -82,8 +81,23 @@ export function heading(model: ChartModel, frame: Frame, view: string): string {
     : model.construction === 'flat'
       ? 'RS rows are read from right to left, WS rows from left to right'
       : 'every round is read from right to left';
+  return [title, `${model.rows.length} ${word}, ${model.width} columns; ${reading}.`];
+}
+
+/** Title line and a subtitle. */
+export function heading(model: ChartModel, frame: Frame, view: string): string {
+  const [title, subtitle] = headingLines(model, view);
   return text({ x: 8, y: 18, 'font-size': 14, 'font-weight': 600 }, title)
-    + text({ x: 8, y: 34, 'font-size': 10, fill: '#444444' }, `${model.rows.length} ${word}, ${model.width} columns; ${reading}.`);
+    + text({ x: 8, y: 34, 'font-size': 10, fill: '#444444' }, subtitle);
+}
+
+/**
+ * Width the heading needs so a narrow chart does not cut its title off: about
+ * 8.2 px per character of the 14 px bold title and 5.6 px at 10 px, as legendWidth.
+ */
+export function headingWidth(model: ChartModel, view: string): number {
+  const [title, subtitle] = headingLines(model, view);
+  return Math.max(title.length * 8.2, subtitle.length * 5.6);
 }
 
 /** Round/row numbers beside the grid, on the side each is read from. */

@@ -10,12 +10,14 @@
  * Output is a complete, well-formed SVG document (all text escaped).
  */
 import type { ChartModel } from './chart-model';
-import { columnNumbers, frameFor, heading, legend, legendWidth, markerLines, NO_STITCH_FILL, rowNumbers, spanAttrs, symbolDefs, type ChartDrawOptions } from './chart-frame';
+import { columnNumbers, frameFor, heading, headingWidth, legend, legendWidth, markerLines, NO_STITCH_FILL, rowNumbers, spanAttrs, symbolDefs, type ChartDrawOptions } from './chart-frame';
 import { el, svgDocument } from './svg';
+
+const FRONT_VIEW = 'chart, front (right side)';
 
 /** Draws the front of the work (as seen on the right side). */
 export function renderChartSvg(model: ChartModel, options: ChartDrawOptions = {}): string {
-  const frame = frameFor(model, options, legendWidth(model));
+  const frame = frameFor(model, options, Math.max(legendWidth(model), headingWidth(model, FRONT_VIEW)));
   const c = frame.cell;
   const rows: string[] = [];
   model.rows.forEach((row, i) => {
@@ -46,7 +48,7 @@ export function renderChartSvg(model: ChartModel, options: ChartDrawOptions = {}
   return svgDocument(frame.width, height, title, [
     symbolDefs(model.legend, c),
     el('rect', { x: 0, y: 0, width: frame.width, height, fill: '#ffffff' }),
-    heading(model, frame, 'chart, front (right side)'),
+    heading(model, frame, FRONT_VIEW),
     el('g', { class: 'cells' }, rows),
     grid,
     markerLines(model, frame),
