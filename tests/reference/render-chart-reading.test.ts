@@ -49,9 +49,12 @@ describe('rendered chart reproduces the chart as drawn', () => {
 });
 
 describe('round and row numbers sit on the side they are read from', () => {
-  function numberSides(svg: string, gridLeft: number): Map<number, 'left' | 'right'> {
+  /** Which side of the grid each round number is drawn on (the grid's left edge is its leftmost cell). */
+  function numberSides(svg: string): Map<number, 'left' | 'right'> {
     const parsed = new XMLParser({ ignoreAttributes: false, attributeNamePrefix: '' }).parse(svg);
     const groups = [parsed.svg.g].flat();
+    const cells = groups.find((g: { class?: string }) => g.class === 'cells');
+    const gridLeft = Math.min(...[cells.g].flat().flatMap((row: { use: unknown }) => [row.use].flat().map((u) => Number((u as { x: string }).x))));
     const nums = groups.find((g: { class?: string }) => g.class === 'row-numbers');
     const out = new Map<number, 'left' | 'right'>();
     for (const t of [nums.text].flat()) out.set(Number(t['data-round']), Number(t.x) < gridLeft ? 'left' : 'right');
@@ -61,13 +64,13 @@ describe('round and row numbers sit on the side they are read from', () => {
   it('in the round, every number on the right', () => {
     const r = compile(`${head}cast on 12\n${chart}\nrounds 1-4: chart c`);
     const model = buildChart(r)!;
-    const sides = numberSides(renderChartSvg(model), 44);
+    const sides = numberSides(renderChartSvg(model));
     expect([...sides.values()]).toEqual(['right', 'right', 'right', 'right']);
   });
 
   it('flat, RS rows on the right and WS rows on the left', () => {
     const r = compile(`${head}work flat\ncast on 12\n${chart}\nrows 1-4: chart c`);
-    const sides = numberSides(renderChartSvg(buildChart(r)!), 44);
+    const sides = numberSides(renderChartSvg(buildChart(r)!));
     expect([...sides]).toEqual([[1, 'right'], [2, 'left'], [3, 'right'], [4, 'left']]);
   });
 });
