@@ -44,11 +44,11 @@
 import type { CstElement, CstNode, IToken, TokenType } from 'chevrotain';
 import type { Diagnostic, RoundSummary, Span } from './types';
 import { compile, type CompileOptions, type CompileResult } from './index';
-import { lexSource, lexer, tokenSpan, spanAt, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
+import { lexSource, lexer, tokenSpan, parseErrorDiagnostics, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
 import { getParser, type ParseError } from './notation/parser';
 import { buildAst, type RoundLineMemo } from './notation/to-ast';
 import type { Graded, NameRef, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
-import { makeDiagnostic, sortDiagnostics } from './diagnostics';
+import { sortDiagnostics } from './diagnostics';
 import { checkPatternTraced, type CheckOutput, type CheckTrace, type NodeMap, type RoundRecord, type SourceTable } from './check';
 import { createResumer, ResumeMiss } from './check/resume';
 
@@ -435,19 +435,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       if (r.cst) csts.push(r.cst);
     }
 
-    let parseCount = 0;
-    for (const e of errors) {
-      parseCount++;
-      if (parseCount > MAX_SYNTAX_DIAGNOSTICS) continue;
-      let span: Span;
-      if (!Number.isNaN(e.token.startOffset) && e.token.image !== undefined && e.token.tokenType.name !== 'EOF') span = tokenSpan(e.token);
-      else if (e.previous && !Number.isNaN(e.previous.startOffset)) span = tokenSpan(e.previous);
-      else span = spanAt(source, source.length);
-      diagnostics.push(makeDiagnostic('LW102', span, { detail: e.message }));
-    }
-    if (parseCount > MAX_SYNTAX_DIAGNOSTICS || stopped) {
-      diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: Math.max(0, parseCount - MAX_SYNTAX_DIAGNOSTICS), code: stopped ? 'LW102; reading stopped' : 'LW102' }));
-    }
+    diagnostics.push(...parseErrorDiagnostics(source, errors, stopped));
     const prev = previous?.order;
     const sameAst = !!prev && prev.length === order.length && order.every((r, i) => r.cst === prev[i].cst && r.offset === prev[i].offset && r.line === prev[i].line && r.errors === prev[i].errors);
     let built: Built;

@@ -6,7 +6,7 @@ import type { IToken } from 'chevrotain';
 import type { Diagnostic, Span } from '../types';
 import { makeDiagnostic } from '../diagnostics';
 import { lexer } from './tokens';
-import { parseTokens } from './parser';
+import { parseTokens, type ParseError } from './parser';
 import { buildAst, tokenSpan } from './to-ast';
 import type { PatternAst } from './ast';
 
@@ -66,25 +66,35 @@ export function lexSource(source: string): { tokens: IToken[]; groups: Record<st
   return { tokens: lexed.tokens, groups: lexed.groups, diagnostics };
 }
 
+/**
+ * The parser's errors as diagnostics: one LW102 each, at the unexpected
+ * token (or the one before it, or the end of the text), up to
+ * MAX_SYNTAX_DIAGNOSTICS; then one LW902 with how many more, also when
+ * reading stopped. Shared by parseSource and the incremental compiler.
+ */
+export function parseErrorDiagnostics(source: string, errors: readonly ParseError[], stopped: boolean): Diagnostic[] {
+  const out: Diagnostic[] = [];
+  for (let i = 0; i < errors.length && i < MAX_SYNTAX_DIAGNOSTICS; i++) {
+    const e = errors[i];
+    let span: Span;
+    if (!Number.isNaN(e.token.startOffset) && e.token.image !== undefined && e.token.tokenType.name !== 'EOF') span = tokenSpan(e.token);
+    else if (e.previous && !Number.isNaN(e.previous.startOffset)) span = tokenSpan(e.previous);
+    else span = spanAt(source, source.length);
+    out.push(makeDiagnostic('LW102', span, { detail: e.message }));
+  }
+  if (errors.length > MAX_SYNTAX_DIAGNOSTICS || stopped) {
+    out.push(makeDiagnostic('LW902', spanAt(source, 0), { count: Math.max(0, errors.length - MAX_SYNTAX_DIAGNOSTICS), code: stopped ? 'LW102; reading stopped' : 'LW102' }));
+  }
+  return out;
+}
+
 /** Reads a source. Never throws on user input; problems are diagnostics. */
 export function parseSource(source: string): ParsedSource {
   const lexed = lexSource(source);
   const diagnostics = lexed.diagnostics;
 
   const parsed = parseTokens(lexed.tokens, MAX_SYNTAX_DIAGNOSTICS * 4);
-  let parseCount = 0;
-  for (const e of parsed.errors) {
-    parseCount++;
-    if (parseCount > MAX_SYNTAX_DIAGNOSTICS) continue;
-    let span: Span;
-    if (!Number.isNaN(e.token.startOffset) && e.token.image !== undefined && e.token.tokenType.name !== 'EOF') span = tokenSpan(e.token);
-    else if (e.previous && !Number.isNaN(e.previous.startOffset)) span = tokenSpan(e.previous);
-    else span = spanAt(source, source.length);
-    diagnostics.push(makeDiagnostic('LW102', span, { detail: e.message }));
-  }
-  if (parseCount > MAX_SYNTAX_DIAGNOSTICS || parsed.stopped) {
-    diagnostics.push(makeDiagnostic('LW902', spanAt(source, 0), { count: Math.max(0, parseCount - MAX_SYNTAX_DIAGNOSTICS), code: parsed.stopped ? 'LW102; reading stopped' : 'LW102' }));
-  }
+  diagnostics.push(...parseErrorDiagnostics(source, parsed.errors, parsed.stopped));
 
   const built = buildAst(parsed.statements.map((s) => s.cst));
   const comments = (lexed.groups.comments ?? []).map(tokenSpan);
