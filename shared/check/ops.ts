@@ -346,7 +346,9 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       const n = op.held + op.worked;
       if (!m.room(n, op.span)) return;
       let got = 0;
-      for (let j = 0; j < n; j++) if (m.takeFront(src, 'the cable') >= 0) got++;
+      // Once the scope is used up every further take finds nothing too: stop there
+      // (a cable of a million stitches must not ask a million times).
+      for (let j = 0; j < n; j++) { if (m.takeFront(src, 'the cable') < 0) break; got++; }
       m.worked += n;
       if (got < n) {
         m.missing += n - got;

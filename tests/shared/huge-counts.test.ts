@@ -61,3 +61,12 @@ describe('repeats that run on after the needle is used up', () => {
     expect(lw901?.message).toContain('2,000,000 repeat passes that work no stitch');
   });
 });
+
+describe('a cable wider than the needle', () => {
+  it('cable 1000000 over 1 on 10 stitches says how many it needs and how many were left (LW303)', () => {
+    const result = compile(`${header}round 1: cable 1000000 over 1 right\n`);
+    const lw303 = result.diagnostics.find((d) => d.code === 'LW303');
+    expect(lw303?.message).toContain('1000001');
+    expect(result.sizes[0].rounds[0].front).toBe(10);
+  });
+});
