@@ -11,7 +11,7 @@
  *    after it moved by the change in length (cutAround). Only whole lines
  *    around the edit are lexed again: no token but skipped blank space
  *    crosses a line break, and the region starts and ends where a statement
- *    starts a line, so the cut (parser.ts `startsStatement`, repeated here)
+ *    starts a line, so the cut (parser.ts `startsStatement`, the parser's own rule)
  *    comes out as a cut of the whole text would. Anything unusual (\r line
  *    ends, unreadable characters, many errors, edits in the first statement)
  *    lexes the whole text instead (cutAll).
@@ -41,11 +41,11 @@
  * (as every compile result is). Memory: only the previous source's pieces
  * and result are kept.
  */
-import type { CstElement, CstNode, IToken, TokenType } from 'chevrotain';
+import type { CstElement, CstNode, IToken } from 'chevrotain';
 import type { Diagnostic, RoundSummary, Span } from './types';
 import { compile, type CompileOptions, type CompileResult } from './index';
-import { lexSource, lexer, tokenSpan, parseErrorDiagnostics, MAX_SYNTAX_DIAGNOSTICS, allTokens, type PatternAst } from './notation';
-import { getParser, type ParseError } from './notation/parser';
+import { lexSource, lexer, tokenSpan, parseErrorDiagnostics, MAX_SYNTAX_DIAGNOSTICS, type PatternAst } from './notation';
+import { getParser, startsStatement, type ParseError } from './notation/parser';
 import { buildAst, type RoundLineMemo } from './notation/to-ast';
 import type { Graded, NameRef, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { sortDiagnostics } from './diagnostics';
@@ -70,33 +70,6 @@ export interface IncrementalCompiler {
   compile(source: string, options?: CompileOptions): CompileResult;
   /** What the last call reused (for benchmarks and tests). */
   readonly lastStats: IncrementalStats;
-}
-
-const byName = new Map<string, TokenType>(allTokens.map((t) => [t.name, t]));
-const T = (name: string): TokenType => {
-  const t = byName.get(name);
-  if (!t) throw new Error(`incremental compiler: no token type ${name}`); // programmer error: the token set changed
-  return t;
-};
-const starters = new Set<TokenType>(['Title', 'Designer', 'Item', 'Sizes', 'Gauge', 'Yarn', 'Work', 'Float', 'Cast', 'Ladder'].map(T));
-const roundWords = new Set<TokenType>(['Round', 'Rounds', 'Row', 'Rows'].map(T));
-const afterRoundNumber = new Set<TokenType>(['Colon', 'Dash', 'Every', 'At', 'In'].map(T));
-const [NumberLit, Slash, Chart, Name, Colon] = ['NumberLit', 'Slash', 'Chart', 'Name', 'Colon'].map(T);
-
-/** The parser's own cut rule (parser.ts `startsStatement`), repeated here; the property test guards the copy. */
-function startsStatement(tokens: IToken[], i: number): boolean {
-  const t = tokens[i].tokenType;
-  if (starters.has(t)) return true;
-  if (roundWords.has(t)) {
-    let j = i + 1;
-    if (tokens[j]?.tokenType !== NumberLit) return false;
-    while (tokens[j + 1]?.tokenType === Slash && tokens[j + 2]?.tokenType === NumberLit) j += 2;
-    const after = tokens[j + 1]?.tokenType;
-    if (after && afterRoundNumber.has(after)) return true;
-    return i > 0 && (tokens[i - 1].endLine ?? 0) < (tokens[i].startLine ?? 0);
-  }
-  if (t === Chart) return tokens[i + 1]?.tokenType === Name && tokens[i + 2]?.tokenType === Colon;
-  return false;
 }
 
 type Built = ReturnType<typeof buildAst>;

@@ -397,7 +397,7 @@ const starters = new Set<TokenType>([T.Title, T.Designer, T.Item, T.Sizes, T.Gau
  * when a number follows and they are not part of "chart NAME row 2";
  * `chart` starts a block only as "chart NAME:".
  */
-function startsStatement(tokens: IToken[], i: number): boolean {
+export function startsStatement(tokens: IToken[], i: number): boolean {
   const t = tokens[i].tokenType;
   if (starters.has(t)) return true;
   if (t === T.Round || t === T.Rounds || t === T.Row || t === T.Rows) {
