@@ -27,6 +27,12 @@ export interface ReportCall { code: string; span: Span; facts: Facts; size: stri
 export class Reporter {
   readonly list: Diagnostic[] = [];
   private seen = new Set<string>();
+  /**
+   * Per span object, the (code, size, key) triples already seen, flat: a
+   * repeat from the same place (an operation reporting on every pass of a
+   * long repeat) is recognised without building the string id.
+   */
+  private seenAt = new WeakMap<Span, (string | undefined)[]>();
   private counts = new Map<string, number>();
   private dropped = new Map<string, { count: number; span: Span }>();
 
@@ -39,6 +45,12 @@ export class Reporter {
   report(code: string, span: Span, facts: Facts, size?: string, key = '', related?: { span: Span; message: string }[]): boolean {
     this.calls++;
     this.trace?.push({ code, span, facts, size, key, related });
+    let known = this.seenAt.get(span);
+    if (known) {
+      for (let i = 0; i < known.length; i += 3) if (known[i] === code && known[i + 1] === size && known[i + 2] === key) return false;
+    } else this.seenAt.set(span, (known = []));
+    // A few triples per place; past that (many keys at one place) only the string id is kept.
+    if (known.length < 3 * 16) known.push(code, size, key);
     const id = `${code}@${span.from}-${span.to}/${size ?? ''}/${key}`;
     if (this.seen.has(id)) return false;
     this.seen.add(id);
@@ -51,6 +63,22 @@ export class Reporter {
     }
     this.list.push(makeDiagnostic(code, span, { ...facts, ...(size !== undefined ? { size } : {}) }, { size, related }));
     return true;
+  }
+
+  /**
+   * True when `report(code, span, …, size, key)` would be a repeat of a call
+   * already made from the same place; the call is counted as made. Hot
+   * callers ask first so a repeat costs no facts object. Always false while
+   * tracing (the trace keeps every call with its facts).
+   */
+  repeat(code: string, span: Span, size: string | undefined, key: string): boolean {
+    if (this.trace) return false;
+    const known = this.seenAt.get(span);
+    if (!known) return false;
+    for (let i = 0; i < known.length; i += 3) {
+      if (known[i] === code && known[i + 1] === size && known[i + 2] === key) { this.calls++; return true; }
+    }
+    return false;
   }
 
   /** Appends LW902 notes for capped codes and returns everything. */
@@ -92,6 +120,11 @@ export class SizeContext {
     if (i !== undefined) return i;
     this.reporter.report('LW202', ref.span, { name: ref.name, suggest: closestName(ref.name, this.head.yarnIndex.keys()) ?? '' });
     return fallback;
+  }
+
+  /** See Reporter.repeat: true (counted) when this size-specific report would repeat one already made. */
+  repeat(code: string, span: Span, key = ''): boolean {
+    return this.reporter.repeat(code, span, this.sizeLabel, key);
   }
 
   /** Reports a size-specific finding. */

@@ -255,7 +255,8 @@ export class Machine {
       if (f & FLAG.MANAGED) { this.autoBacking(i); continue; }
       this.problem = true;
       this.noteMerged(`${this.side}:${this.front}`);
-      this.ctx.report('LW401', this.sources.spans[src], { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] });
+      const span = this.sources.spans[src];
+      if (!this.ctx.repeat('LW401', span)) this.ctx.report('LW401', span, { word: this.word, round: this.roundNo, stitch: what, yarn: this.ctx.head.yarns[this.inYarn[i]] });
       return i;
     }
     return -1;

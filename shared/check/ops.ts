@@ -15,6 +15,17 @@ import { closestName, type Facts } from '../diagnostics';
 
 const sizeFacts = (m: Machine): Facts => (m.scopeName ? { word: m.word, round: m.roundNo, segment: m.scopeName } : { word: m.word, round: m.roundNo });
 
+/**
+ * Reports a finding of the round being worked: its word, round (and segment)
+ * then `extra`. A repeat from the same place (an operation that meets the
+ * same problem on every pass of a long repeat) returns before the facts are
+ * built.
+ */
+function reportRound(m: Machine, code: string, span: Span, extra: Facts, key = '', related?: { span: Span; message: string }[]): void {
+  if (m.ctx.repeat(code, span, key)) return;
+  m.ctx.report(code, span, { ...sizeFacts(m), ...extra }, key, related);
+}
+
 /** Works one stitch operation once: takes what it consumes, puts what it produces. */
 export function workStitch(m: Machine, info: StitchInfo, yarn: number, src: number, flags: number): number {
   const c = info.consumes;
@@ -27,7 +38,7 @@ export function workStitch(m: Machine, info: StitchInfo, yarn: number, src: numb
   if (got < c) {
     m.missing += c - got;
     if (c > 1 && got > 0) {
-      m.ctx.report('LW303', m.sources.spans[src], { ...sizeFacts(m), stitch: info.name, needs: c, left: got });
+      reportRound(m, 'LW303', m.sources.spans[src], { stitch: info.name, needs: c, left: got });
       m.problem = true;
     }
     if (got === 0) return 0;
@@ -48,7 +59,7 @@ function target(m: Machine, to: ToSpec, span: Span): number {
   if (!to.name) {
     // In a segment, the next marker is the segment's end.
     if (m.scopeName !== null || m.end < m.inLen) return m.end;
-    m.ctx.report('LW307', span, { ...sizeFacts(m), detail: 'there is no marker ahead before the end of the round' });
+    reportRound(m, 'LW307', span, { detail: 'there is no marker ahead before the end of the round' });
     return -1;
   }
   const known = [...new Set(m.markersIn.map((x) => x.name))].join(', ');
@@ -64,7 +75,7 @@ function available(m: Machine, to: ToSpec, span: Span): number {
   if (to.kind === 'last') {
     const keep = m.ctx.graded(to.n);
     if (keep > n) {
-      m.ctx.report('LW303', span, { ...sizeFacts(m), stitch: `"to last ${keep}"`, needs: keep, left: n });
+      reportRound(m, 'LW303', span, { stitch: `"to last ${keep}"`, needs: keep, left: n });
       m.problem = true;
       return -1;
     }
@@ -205,7 +216,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
         reps = Math.floor(n / info.consumes);
         const over = n % info.consumes;
         if (over) {
-          m.ctx.report('LW302', op.span, { ...sizeFacts(m), repeat: info.consumes, available: n, over });
+          reportRound(m, 'LW302', op.span, { repeat: info.consumes, available: n, over });
           m.problem = true;
         }
       }
@@ -238,7 +249,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
           reps = Math.floor(n / per);
           const over = n % per;
           if (over) {
-            m.ctx.report('LW302', op.span, { ...sizeFacts(m), repeat: per, available: n, over });
+            reportRound(m, 'LW302', op.span, { repeat: per, available: n, over });
             m.problem = true;
           }
         }
@@ -273,7 +284,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       const chart = m.charts.get(op.chart.name)!;
       const rowNo = chart.rows.indexOf(row) + 1;
       if (n < row.consumes) {
-        m.ctx.report('LW304', op.span, { ...sizeFacts(m), chart: chart.name, row: rowNo, width: row.consumes, available: n });
+        reportRound(m, 'LW304', op.span, { chart: chart.name, row: rowNo, width: row.consumes, available: n });
         m.problem = true;
         workChartRow(m, row, yarn);
         return;
@@ -283,7 +294,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
         reps = Math.floor(n / row.consumes);
         const over = n % row.consumes;
         if (over) {
-          m.ctx.report('LW302', op.span, { ...sizeFacts(m), repeat: row.consumes, available: n, over });
+          reportRound(m, 'LW302', op.span, { repeat: row.consumes, available: n, over });
           m.problem = true;
         }
       }
@@ -307,7 +318,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       if (j >= 0) { m.markersIn.splice(j, 1); m.passEvents(); return; }
       const known = [...new Set([...m.markersIn.map((x) => x.name), ...m.markersOut.map((x) => x.name)])].join(', ');
       if (m.markersIn.some((x) => x.name === op.name.name)) {
-        m.ctx.report('LW307', op.span, { ...sizeFacts(m), detail: `marker ${op.name.name} is not at this point of the ${m.word}` });
+        reportRound(m, 'LW307', op.span, { detail: `marker ${op.name.name} is not at this point of the ${m.word}` });
       } else m.ctx.report('LW205', op.name.span, { round: m.roundNo, name: op.name.name, known });
       return;
     }
@@ -333,7 +344,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
           m.putBacking(OP.carry, m.inYarn[m.pos], src, f, m.inCol[m.pos]);
           m.pos++;
         } else {
-          m.ctx.report('LW405', op.span, { ...sizeFacts(m), detail: 'carry meets a front stitch, not a backing stitch; it is knitted' });
+          reportRound(m, 'LW405', op.span, { detail: 'carry meets a front stitch, not a backing stitch; it is knitted' });
           workStitch(m, STITCHES[OP.k], yarn, src, 0);
         }
       }
@@ -352,7 +363,7 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       m.worked += n;
       if (got < n) {
         m.missing += n - got;
-        m.ctx.report('LW303', op.span, { ...sizeFacts(m), stitch: `cable ${op.held} over ${op.worked}`, needs: n, left: got });
+        reportRound(m, 'LW303', op.span, { stitch: `cable ${op.held} over ${op.worked}`, needs: n, left: got });
         m.problem = true;
       }
       for (let j = 0; j < got; j++) m.putFront(code, y, src, 0);
@@ -368,7 +379,7 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
   m.worked += 2;
   if (a >= m.end) {
     m.missing += 2;
-    m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no stitch left to close' });
+    reportRound(m, 'LW405', span, { detail: 'there is no stitch left to close' });
     m.problem = true;
     return;
   }
@@ -380,10 +391,10 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
     m.problem = true;
     if (backA) {
       m.noteReportedColumn(m.inCol[a]);
-      m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'the backing stitch is the last stitch here, with no front neighbour to close with' });
+      reportRound(m, 'LW403', span, { detail: 'the backing stitch is the last stitch here, with no front neighbour to close with' });
       m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
     } else {
-      m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no backing stitch here to close' });
+      reportRound(m, 'LW405', span, { detail: 'there is no backing stitch here to close' });
       m.putFront(OP.k, m.inYarn[a], src, 0);
     }
     m.pos = a + 1;
@@ -393,7 +404,7 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
   if (backA && backB) {
     m.noteReportedColumn(m.inCol[a]);
     m.noteReportedColumn(m.inCol[b]);
-    m.ctx.report('LW403', span, { ...sizeFacts(m), detail: 'two backing stitches side by side: close needs a front stitch as neighbour' });
+    reportRound(m, 'LW403', span, { detail: 'two backing stitches side by side: close needs a front stitch as neighbour' });
     m.putBacking(OP.carry, m.inYarn[a], src, fa, m.inCol[a]);
     m.putBacking(OP.carry, m.inYarn[b], src, fb, m.inCol[b]);
     m.problem = true;
@@ -405,9 +416,9 @@ function closeBacking(m: Machine, how: 'k2tog' | 'ssk', yarn: number, src: numbe
     if (m.merged.has(key)) {
       // Already reported: the backing stitch here was knitted into the fabric (LW401).
     } else if (before) {
-      m.ctx.report('LW402', span, { ...sizeFacts(m), closedIn: before.round }, '', [{ span: before.span, message: `closed here in ${m.word} ${before.round}` }]);
+      reportRound(m, 'LW402', span, { closedIn: before.round }, '', [{ span: before.span, message: `closed here in ${m.word} ${before.round}` }]);
     } else {
-      m.ctx.report('LW405', span, { ...sizeFacts(m), detail: 'there is no backing stitch here to close; the two stitches are worked together as a decrease' });
+      reportRound(m, 'LW405', span, { detail: 'there is no backing stitch here to close; the two stitches are worked together as a decrease' });
     }
     m.putFront(how === 'ssk' ? OP.closeSsk : OP.closeK2tog, yarn, src, 0);
     return;

@@ -152,7 +152,12 @@ export function workRounds(
         m.abort(p.whole?.span ?? records[records.length - 1].span, `more than ${LIMITS.stitchesPerSize.toLocaleString('en')} stitches would be worked`);
         break;
       }
-      records.push({ ...records[records.length - 1], number: p.number, side: p.side });
+      const r = records[records.length - 1];
+      // Written out rather than spread: a gap of tens of thousands of rounds makes one record each.
+      records.push({
+        number: p.number, side: p.side, offset: r.offset, count: r.count, front: r.front, backing: r.backing, start: r.start, worked: r.worked,
+        markers: r.markers, segments: r.segments, floats: r.floats, lines: r.lines, span: r.span, note: r.note,
+      });
       continue;
     }
     const reported = ctx.reporter.calls;
