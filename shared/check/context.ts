@@ -118,7 +118,10 @@ export class SizeContext {
     if (!ref) return fallback;
     const i = this.head.yarnIndex.get(ref.name);
     if (i !== undefined) return i;
-    this.reporter.report('LW202', ref.span, { name: ref.name, suggest: closestName(ref.name, this.head.yarnIndex.keys()) ?? '' });
+    // Asked first: the suggestion is a search over every yarn name, and a repeat pass asks again and again.
+    if (!this.reporter.repeat('LW202', ref.span, undefined, '')) {
+      this.reporter.report('LW202', ref.span, { name: ref.name, suggest: closestName(ref.name, this.head.yarnIndex.keys()) ?? '' });
+    }
     return fallback;
   }
 

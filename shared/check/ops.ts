@@ -62,8 +62,10 @@ function target(m: Machine, to: ToSpec, span: Span): number {
     reportRound(m, 'LW307', span, { detail: 'there is no marker ahead before the end of the round' });
     return -1;
   }
-  const known = [...new Set(m.markersIn.map((x) => x.name))].join(', ');
-  m.ctx.report('LW205', to.name.span, { round: m.roundNo, name: to.name.name, known });
+  if (!m.ctx.repeat('LW205', to.name.span)) {
+    const known = [...new Set(m.markersIn.map((x) => x.name))].join(', ');
+    m.ctx.report('LW205', to.name.span, { round: m.roundNo, name: to.name.name, known });
+  }
   return -1;
 }
 
@@ -117,7 +119,9 @@ export function consumption(m: Machine, ops: readonly Op[]): number | null {
 function chartRow(m: Machine, op: Extract<Op, { type: 'chart' }>, report: boolean): ChartRow | null {
   const chart = m.charts.get(op.chart.name);
   if (!chart) {
-    if (report) m.ctx.reporter.report('LW203', op.chart.span, { name: op.chart.name, suggest: closestName(op.chart.name, m.charts.keys()) ?? '' });
+    if (report && !m.ctx.reporter.repeat('LW203', op.chart.span, undefined, '')) {
+      m.ctx.reporter.report('LW203', op.chart.span, { name: op.chart.name, suggest: closestName(op.chart.name, m.charts.keys()) ?? '' });
+    }
     return null;
   }
   if (chart.rows.length === 0) return null;
@@ -316,10 +320,12 @@ function execOp(m: Machine, op: Op, yarn: number): void {
       if (k >= 0) { m.markersOut.splice(k, 1); return; }
       const j = m.markersIn.findIndex((x, idx) => idx >= m.mi && x.name === op.name.name && x.at === m.pos);
       if (j >= 0) { m.markersIn.splice(j, 1); m.passEvents(); return; }
-      const known = [...new Set([...m.markersIn.map((x) => x.name), ...m.markersOut.map((x) => x.name)])].join(', ');
       if (m.markersIn.some((x) => x.name === op.name.name)) {
         reportRound(m, 'LW307', op.span, { detail: `marker ${op.name.name} is not at this point of the ${m.word}` });
-      } else m.ctx.report('LW205', op.name.span, { round: m.roundNo, name: op.name.name, known });
+      } else if (!m.ctx.repeat('LW205', op.name.span)) {
+        const known = [...new Set([...m.markersIn.map((x) => x.name), ...m.markersOut.map((x) => x.name)])].join(', ');
+        m.ctx.report('LW205', op.name.span, { round: m.roundNo, name: op.name.name, known });
+      }
       return;
     }
     case 'catch': {

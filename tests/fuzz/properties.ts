@@ -178,13 +178,30 @@ export interface Failure { kind: 'throw' | 'span' | 'determinism' | 'ok-flag' | 
  * Result of checking one source: the failure (if any), the faster of the
  * two compiles in CPU milliseconds (user + system of this process, so other
  * programs on a busy machine do not count) and in wall-clock milliseconds,
- * and the stitches in the model (worked stitches over every size).
+ * and the stitches in the model over every size: the cast-on plus every
+ * round's stitches (a round repeated on an unchanged needle counts again,
+ * though it shares its stitches; see `modelStitches`).
  */
 export interface CaseResult { failure: Failure | null; cpuMs: number; wallMs: number; stitches: number }
 
 function cpuNow(): number {
   const u = process.cpuUsage();
   return (u.user + u.system) / 1000;
+}
+
+/**
+ * The stitches a result's model stands for: per size, the cast-on (the
+ * store before the first round, or all of it when no round was worked) plus
+ * each round's count. `cast on 1000000` alone is a million stitches of work.
+ */
+export function modelStitches(result: CompileResult): number {
+  let n = 0;
+  for (const s of result.sizes) {
+    const { rounds, store } = s.stitches;
+    n += rounds.length ? rounds[0].offset : store.length;
+    for (const r of rounds) n += r.count;
+  }
+  return n;
 }
 
 /** Compiles `source` twice and checks the properties above. Never throws. */
@@ -205,7 +222,7 @@ export function checkSource(source: string): CaseResult {
     const e = err instanceof Error ? err : new Error(String(err));
     return { failure: { kind: 'throw', message: `${e.name}: ${e.message}`, stack: e.stack }, cpuMs, wallMs, stitches: 0 };
   }
-  const stitches = first.sizes.reduce((n, s) => n + s.stitches.rounds.reduce((m, r) => m + r.count, 0), 0);
+  const stitches = modelStitches(first);
   const result = (failure: Failure | null): CaseResult => ({ failure, cpuMs, wallMs, stitches });
   const starts = lineStarts(source);
   for (const d of first.diagnostics) {

@@ -83,7 +83,14 @@ describe('the fuzz harness itself', () => {
   it('checkSource reports the stitches of the model and a timing', () => {
     const r = checkSource('yarn A "Harbour" #1d3557\ncast on 10\nrounds 1-3: k to end\n');
     expect(r.failure).toBeNull();
-    expect(r.stitches).toBe(30); // 3 rounds of 10 stitches (common practice: a plain round works every stitch once)
+    // The cast-on's 10 and 3 rounds of 10 (common practice: a plain round works every stitch once).
+    expect(r.stitches).toBe(40);
     expect(r.cpuMs).toBeGreaterThanOrEqual(0);
+  });
+
+  it('counts a cast-on with no rounds as the stitches of the model', () => {
+    // Three sizes, each casting on 1000: the model holds 3000 stitches though no round is worked.
+    const r = checkSource('sizes S M L\nyarn A "Harbour" #1d3557\ncast on 1000\n');
+    expect(r.stitches).toBe(3000);
   });
 });
