@@ -47,3 +47,25 @@ export function passwordResetMail(o: { to: string; name: string; link: string; e
     html: layout(lines, o.link, 'Choose a new password', footer),
   };
 }
+
+/**
+ * Notice that an account's password was changed (in the account settings or
+ * with a reset link), sent to the account's address so its owner learns of
+ * a change they did not make. Carries no secret: the link opens the page
+ * that asks for a fresh reset link.
+ */
+export function passwordChangedMail(o: { to: string; name: string; at: Date; how: 'settings' | 'reset'; resetPage: string }): MailMessage {
+  const how = o.how === 'settings' ? 'in the account settings' : 'with a reset link sent to this address';
+  const lines = [
+    `Hello ${o.name},`,
+    `The password of your Loopwright account (${o.to}) was changed ${how} on ${o.at.toUTCString()}. Every other signed-in session of the account has been signed out.`,
+    'If that was you, there is nothing more to do. If it was not, ask for a reset link at once with the link below and choose a new password; it signs out everyone else, whoever changed it.',
+  ];
+  const footer = 'You get this message whenever the password of this account changes.';
+  return {
+    to: o.to,
+    subject: 'Your Loopwright password was changed',
+    text: `${lines.join('\n\n')}\n\n${o.resetPage}\n\n${footer}\n`,
+    html: layout(lines, o.resetPage, 'Ask for a reset link', footer),
+  };
+}

@@ -10,7 +10,7 @@ import { Op } from 'sequelize';
 import type { ServerContext } from '../context.ts';
 import { PasswordReset, User } from '../models/index.ts';
 import { AppError, notFound } from './errors.ts';
-import { hashPassword } from './auth.ts';
+import { hashPassword, notifyPasswordChanged } from './auth.ts';
 
 /** Message of the 403 `wrong-password` answer. */
 export const WRONG_PASSWORD = 'The current password is not right, so nothing was changed.';
@@ -28,11 +28,12 @@ export async function renameUser(userId: number, name: string): Promise<User> {
  * Replaces the password when `current` matches the stored hash.
  * 403 `wrong-password` otherwise (the account is unchanged). On success the
  * session version is bumped (every token issued before stops working) and
- * open reset links of the account are closed, as after a mailed reset.
+ * open reset links of the account are closed, as after a mailed reset, and
+ * the account's address is told of the change.
  */
 export async function changePassword(ctx: ServerContext, userId: number, current: string, next: string): Promise<User> {
   const nextHash = await hashPassword(ctx, next);
-  return ctx.sequelize.transaction(async (transaction) => {
+  const changed = await ctx.sequelize.transaction(async (transaction) => {
     // Locked, so two changes at once cannot both pass the check against the same old hash.
     const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!user) throw notFound('That account');
@@ -45,4 +46,6 @@ export async function changePassword(ctx: ServerContext, userId: number, current
     await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction });
     return user;
   });
+  notifyPasswordChanged(ctx, changed, 'settings');
+  return changed;
 }

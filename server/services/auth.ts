@@ -8,7 +8,7 @@ import bcrypt from 'bcryptjs';
 import jwt from 'jsonwebtoken';
 import { Op, UniqueConstraintError } from 'sequelize';
 import type { ServerContext } from '../context.ts';
-import { passwordResetMail } from '../mail/templates.ts';
+import { passwordChangedMail, passwordResetMail } from '../mail/templates.ts';
 import { PasswordReset, User, type GlobalRole } from '../models/index.ts';
 import { AppError, conflict, gone, notFound } from './errors.ts';
 import { hashToken, newToken } from './tokens.ts';
@@ -104,12 +104,13 @@ export async function requestPasswordReset(ctx: ServerContext, email: string): P
 
 /**
  * Sets a new password with a reset token. The token works once; every other
- * open reset of that account is closed and existing sessions end.
+ * open reset of that account is closed and existing sessions end; the
+ * account's address is told of the change (notifyPasswordChanged).
  * 404 unknown token, 410 used or expired.
  */
 export async function resetPassword(ctx: ServerContext, token: string, password: string): Promise<void> {
   const passwordHash = await hashPassword(ctx, password);
-  await ctx.sequelize.transaction(async (transaction) => {
+  const user = await ctx.sequelize.transaction(async (transaction) => {
     const reset = await PasswordReset.findOne({ where: { tokenHash: hashToken(token) }, lock: transaction.LOCK.UPDATE, transaction });
     if (!reset) throw notFound('That reset link');
     if (reset.usedAt) throw gone('token-used', 'That reset link has already been used. Ask for a new one.');
@@ -121,5 +122,19 @@ export async function resetPassword(ctx: ServerContext, token: string, password:
     await user.save({ transaction });
     const now = new Date();
     await PasswordReset.update({ usedAt: now }, { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction });
+    return user;
+  });
+  notifyPasswordChanged(ctx, user, 'reset');
+}
+
+/**
+ * Mails the account's address that its password changed (after the change
+ * is committed). Not awaited: a mail server that is down must not undo or
+ * delay the change; a failed send is logged.
+ */
+export function notifyPasswordChanged(ctx: ServerContext, user: User, how: 'settings' | 'reset'): void {
+  const message = passwordChangedMail({ to: user.email, name: user.name, at: new Date(), how, resetPage: `${ctx.config.publicUrl}/reset-password` });
+  ctx.mailer.send(message).catch((err: unknown) => {
+    console.error('password change notice could not be sent:', err instanceof Error ? err.message : err);
   });
 }

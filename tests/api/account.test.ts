@@ -12,13 +12,27 @@ import bcrypt from 'bcryptjs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PasswordReset, User } from '../../server/models/index.ts';
-import { PASSWORD, STUDIO_ORIGIN, buildApp, makeUser, startHarness, type ApiHarness } from './helpers.ts';
+import { PASSWORD, PUBLIC_URL, STUDIO_ORIGIN, buildApp, makeUser, startHarness, type ApiHarness } from './helpers.ts';
 
 let h: ApiHarness;
 beforeAll(async () => { h = await startHarness(); });
 afterAll(async () => { await h.close(); });
 
 const NEW_PASSWORD = 'ebb tide at the quay';
+
+/**
+ * The password-changed notice mailed to `email` (waits up to 5 s). Telling
+ * the owner of every password change is common practice (from memory: the
+ * OWASP Authentication Cheat Sheet asks for a notice on account changes).
+ */
+async function noticeFor(email: string) {
+  for (let waited = 0; waited < 5000; waited += 50) {
+    const found = h.smtp.list().find((m) => m.to.includes(email) && /password was changed/i.test(m.subject));
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no password-changed notice to ${email}`);
+}
 
 /** A browser-like session: cookie jar plus the studio's Origin on every request. */
 async function cookieSession(email: string, password = PASSWORD) {
@@ -95,6 +109,26 @@ describe('POST /api/me/password: changing the password', () => {
     expect(await bcrypt.compare(NEW_PASSWORD, stored.passwordHash)).toBe(true);
     expect((await request(h.app).post('/api/auth/login').send({ email: u.email, password: PASSWORD })).status).toBe(401);
     expect((await request(h.app).post('/api/auth/login').send({ email: u.email, password: NEW_PASSWORD })).status).toBe(200);
+  });
+
+  it('mails the account a notice of the change, with a way to take the account back and no secret in it', async () => {
+    const u = await makeUser(h.app, 'pw-notice');
+    const res = await request(h.app).post('/api/me/password').set('Authorization', u.auth).send({ currentPassword: PASSWORD, newPassword: NEW_PASSWORD });
+    expect(res.status).toBe(200);
+    const notice = await noticeFor(u.email);
+    expect(notice.text).toContain('account settings');
+    expect(notice.text).toContain(u.email);
+    // The link asks for a fresh reset link; it carries no token (an old mailbox must not hold a key to the account).
+    expect(notice.links).toEqual([`${PUBLIC_URL}/reset-password`]);
+    expect(notice.text).not.toContain(NEW_PASSWORD);
+  });
+
+  it('sends no notice when the change is refused', async () => {
+    const u = await makeUser(h.app, 'pw-no-notice');
+    const res = await request(h.app).post('/api/me/password').set('Authorization', u.auth).send({ currentPassword: 'not the password', newPassword: NEW_PASSWORD });
+    expect(res.status).toBe(403);
+    await new Promise((r) => setTimeout(r, 300)); // a send would have been on its way by now
+    expect(h.smtp.list().some((m) => m.to.includes(u.email))).toBe(false);
   });
 
   it('works with a Bearer token too (for scripts): the answer carries the replacement token', async () => {

@@ -141,6 +141,14 @@ describe('password reset', () => {
     expect((await request(h.app).post('/api/auth/login').send({ email: user.email, password: 'a brand new password' })).status).toBe(200);
     // The session from before the reset has ended.
     expect((await request(h.app).get('/api/me').set('Authorization', user.auth)).status).toBe(401);
+    // And the address is told of the change, with no secret link in the notice.
+    let notice = h.smtp.list().find((m) => m.to.includes(user.email) && /password was changed/i.test(m.subject));
+    for (let waited = 0; !notice && waited < 5000; waited += 50) {
+      await new Promise((r) => setTimeout(r, 50));
+      notice = h.smtp.list().find((m) => m.to.includes(user.email) && /password was changed/i.test(m.subject));
+    }
+    expect(notice?.text).toContain('reset link');
+    expect(notice?.links).toEqual([`${PUBLIC_URL}/reset-password`]);
   });
 
   it('answers the same 202 for an unknown e-mail and sends nothing', async () => {

@@ -2,7 +2,8 @@
  * Password card of the account page: change the password with the current
  * one (same rule as sign-up, checked here before sending and again by the
  * server), or, for a forgotten current password, have a reset link mailed.
- * After a change every other signed-in browser is signed out; this one stays.
+ * After a change every other signed-in browser is signed out; this one stays,
+ * and the server mails the account a notice of the change.
  */
 import { useRef, useState, type FormEvent } from 'react';
 import { errorText } from '../../api/client';
@@ -59,7 +60,7 @@ export function PasswordForm({ user }: { user: User }) {
         <Field label="Repeat the new password" type="password" autoComplete="new-password" required value={repeat}
           onChange={(e) => edit(setRepeat)(e.target.value)} error={repeatError} />
         {otherError && <Notice tone="error">{otherError}</Notice>}
-        {change.isSuccess && <Notice tone="success">Password changed. Other browsers and devices have been signed out.</Notice>}
+        {change.isSuccess && <Notice tone="success">Password changed. Other browsers and devices have been signed out, and a notice is on its way to your e-mail address.</Notice>}
         <button type="submit" className="btn btn-primary" disabled={change.isPending}>
           {change.isPending ? 'Changing…' : 'Change password'}
         </button>
