@@ -2,15 +2,17 @@
  * The figures of `npm run bench` beside the compile ones (tests/bench/run.ts):
  * the edit figure (edit.ts), the bundle sizes (bundles.ts) and the HTTP load
  * figure (api.ts), and the printed table of all five against their goals
- * (the benchmark issue). A part that cannot run is reported with its error
+ * (the benchmark issue); then the capacity numbers (capacity.ts: revision
+ * saves and export CPU), which have no goal but decide when to grow. A part that cannot run is reported with its error
  * and a null figure; the others still run.
  */
-import { formatApiFigure, measureApi, type ApiBenchOptions, type ApiFigure } from './api.ts';
+import { formatApiFigure, measureApiOn, startApiStack, type ApiBenchOptions, type ApiFigure, type ApiStack } from './api.ts';
+import { formatCapacity, measureExports, measureSaves, type ExportCapacity, type SaveCapacity } from './capacity.ts';
 import { measureBundleFigures } from './bundles.ts';
 import { measureEdit, type EditFigure } from './edit.ts';
 
 /** The parts of `npm run bench` that `--only` can pick. */
-export const BENCH_PARTS = ['compile', 'edit', 'bundles', 'api'] as const;
+export const BENCH_PARTS = ['compile', 'edit', 'bundles', 'api', 'capacity'] as const;
 export type BenchPart = (typeof BENCH_PARTS)[number];
 
 /** What the command line asked for: the parts to measure and settings of the HTTP figure. */
@@ -55,7 +57,12 @@ export interface Figure { name: string; value: number | null; goal: number; unit
 /** The figures besides the compile ones, plus their details for latest.json. */
 export interface OtherFigures {
   figures: Figure[];
-  details: { edit?: EditFigure[]; bundles?: unknown; api?: ApiFigure; errors: Record<string, string> };
+  details: {
+    edit?: EditFigure[]; bundles?: unknown; api?: ApiFigure;
+    /** The capacity numbers (capacity.ts): not goal figures, the inputs of docs/scaling.md's "When to grow". */
+    capacity?: { saves: SaveCapacity | null; exports: ExportCapacity[] | null };
+    errors: Record<string, string>;
+  };
 }
 
 const message = (err: unknown) => (err instanceof Error ? err.message : String(err));
@@ -87,14 +94,36 @@ export async function measureOtherFigures(args: BenchArgs = { parts: new Set(BEN
     figures.push({ name: 'workspaceKB', value: null, goal: 300, unit: 'KB', error: message(err) });
   }
 
-  if (args.parts.has('api')) try {
-    const api = await measureApi(args.api);
-    console.log(formatApiFigure(api));
-    details.api = { ...api, p99Ratio: round(api.p99Ratio) };
-    figures.push({ name: 'apiP99VsHealth', value: round(api.p99Ratio), goal: 3, unit: 'x' });
-  } catch (err) {
-    details.errors.apiP99VsHealth = message(err);
-    figures.push({ name: 'apiP99VsHealth', value: null, goal: 3, unit: 'x', error: message(err) });
+  // The HTTP figure and the save capacity share one private stack (database, SMTP, app).
+  let stack: ApiStack | null = null;
+  let stackError: unknown = null;
+  if (args.parts.has('api') || args.parts.has('capacity')) {
+    try { stack = await startApiStack(); } catch (err) { stackError = err; }
+  }
+  try {
+    if (args.parts.has('api')) try {
+      if (!stack) throw stackError;
+      const api = await measureApiOn(stack, args.api);
+      console.log(formatApiFigure(api));
+      details.api = { ...api, p99Ratio: round(api.p99Ratio) };
+      figures.push({ name: 'apiP99VsHealth', value: round(api.p99Ratio), goal: 3, unit: 'x' });
+    } catch (err) {
+      details.errors.apiP99VsHealth = message(err);
+      figures.push({ name: 'apiP99VsHealth', value: null, goal: 3, unit: 'x', error: message(err) });
+    }
+
+    if (args.parts.has('capacity')) {
+      const capacity: { saves: SaveCapacity | null; exports: ExportCapacity[] | null } = { saves: null, exports: null };
+      try {
+        if (!stack) throw stackError;
+        capacity.saves = await measureSaves(stack);
+      } catch (err) { details.errors.saves = message(err); }
+      try { capacity.exports = await measureExports(); } catch (err) { details.errors.exports = message(err); }
+      console.log(formatCapacity(capacity.saves, capacity.exports));
+      details.capacity = capacity;
+    }
+  } finally {
+    await stack?.stop();
   }
   return { figures, details };
 }

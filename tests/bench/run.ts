@@ -9,7 +9,7 @@
  *
  * Flags (after `npm run bench --`):
  * - `--only PARTS`: a comma-separated subset of `compile`, `edit`, `bundles`,
- *   `api` (e.g. `--only api`). Only those are measured, and the result goes
+ *   `api`, `capacity` (e.g. `--only api`). Only those are measured, and the result goes
  *   to `.data/bench/latest-<parts>.json`, so latest.json keeps the last full run.
  * - `--api-rounds N`, `--api-seconds S`: rounds of the HTTP figure and seconds
  *   per route per round (defaults in api.ts, API_BENCH_DEFAULTS).
@@ -116,7 +116,8 @@ const figures: Figure[] = [
 ];
 const loadAfter = os.loadavg()[0];
 const loadNote = compiled ? `${compiled.loadAverage.toFixed(2)} after the compile figures` : `${loadStart.toFixed(2)} at the start`;
-console.log(`\n${formatFigureTable(figures)}\n(load average ${loadNote}, ${loadAfter.toFixed(2)} at the end, ${os.cpus().length} cores)`);
+if (figures.length) console.log(`\n${formatFigureTable(figures)}`);
+console.log(`(load average ${loadNote}, ${loadAfter.toFixed(2)} at the end, ${os.cpus().length} cores)`);
 const all = {
   ...(compiled ?? {}),
   parts: [...args.parts],
