@@ -5,8 +5,9 @@
  * round, the last whole-round line that covers it wins; lines with
  * "at SEGMENT" are collected per segment (again the last one wins). A round
  * with both kinds is LW211 (the whole-round line is worked); a round with
- * neither is LW209 (not reported when the text had syntax errors: the
- * missing round is most likely the line that could not be read). Ladder lines are
+ * neither is LW209, once per run of such rounds (not reported when the text
+ * had syntax errors: the missing round is most likely the line that could
+ * not be read). Ladder lines are
  * attached to the rounds they set up (first), work and close (last).
  */
 import type { LadderLine, PatternAst, RoundLine } from '../notation';
@@ -84,9 +85,12 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       const [segName, segLine] = [...here][0];
       ctx.reporter.report('LW211', segLine.headSpan, { word: wordOf, round: n, segment: segName }, ctx.sizeLabel, String(n));
     }
-    if (!w && !here && !quietGaps) {
+    if (!w && !here && !quietGaps && (n === 1 || whole[n - 1] >= 0 || segs[n - 1])) {
+      // One report per run of rounds without instructions: a gap of 40,000 rounds is one problem.
+      let through = n;
+      while (through < max && whole[through + 1] < 0 && !segs[through + 1]) through++;
       const near = ast.rounds.find((l) => (ranges.get(l)?.first ?? 0) > n) ?? ast.rounds[ast.rounds.length - 1];
-      ctx.report('LW209', near.headSpan, { word: wordOf, round: n, last: max }, String(n));
+      ctx.report('LW209', near.headSpan, { word: wordOf, round: n, through, last: max }, String(n));
     }
     rounds.push({ number: n, side, whole: w, segments: w || !here ? NO_SEGMENTS : here, ladders: [] });
   }

@@ -66,8 +66,12 @@ const list: CodeInfo[] = [
     message: (f) => `there is no size ${f.name}`, hint: (f) => `sizes: ${f.known}` },
   // Round without instructions
   { code: 'LW209', severity: 'error',
-    message: (f) => `${f.word} ${f.round} has no instructions${f.size ? ` (size ${f.size})` : ''}`,
-    hint: (f) => `rounds are worked from 1 to ${f.last}; write ${f.word} ${f.round} or widen a range` },
+    message: (f) => (f.through !== undefined && f.through !== f.round
+      ? `${f.word}s ${f.round} to ${f.through} have no instructions${f.size ? ` (size ${f.size})` : ''}`
+      : `${f.word} ${f.round} has no instructions${f.size ? ` (size ${f.size})` : ''}`),
+    hint: (f) => (f.through !== undefined && f.through !== f.round
+      ? `${f.word}s are worked from 1 to ${f.last}; write ${f.word}s ${f.round}-${f.through} or widen a range`
+      : `${f.word}s are worked from 1 to ${f.last}; write ${f.word} ${f.round} or widen a range`) },
   // Chart key problem
   { code: 'LW210', severity: 'error', message: (f) => String(f.detail),
     hint: (f) => (f.hint ? String(f.hint) : undefined) },
