@@ -83,6 +83,10 @@ describe('account pages in Chromium', () => {
     await page.waitForURL(/\/patterns$/);
     await page.getByRole('link', { name: /Account settings/ }).waitFor();
     expect(await page.getByRole('link', { name: /Account settings/ }).textContent()).toContain('Wren Calloway Marsh');
+
+    // The address was told of the change.
+    await page.goto(`${h.baseUrl}/dev/outbox`);
+    await page.getByRole('listitem').filter({ hasText: `To ${email}` }).filter({ hasText: 'Your Loopwright password was changed' }).first().waitFor({ timeout: 15_000 });
     await page.close();
   }, 120_000);
 });
