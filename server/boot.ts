@@ -11,7 +11,7 @@ import { createApp } from './app.ts';
 import { createSequelize } from './db/connection.ts';
 import { startPrivateMariaDB, type PrivateMariaDB } from './db/launcher.ts';
 import { migrate } from './db/migrate.ts';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from './db/seed.ts';
+import { changedDemoExamples, DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from './db/seed.ts';
 import { seedReviewDemo } from './db/seed-review.ts';
 import { seedShopDemo } from './db/seed-shop.ts';
 import { startFakePayments } from './fakes/payments.ts';
@@ -59,6 +59,11 @@ export async function startLocalBackend(opts: LocalBackendOptions = {}): Promise
     await migrate(sequelize);
     const seeded = await seedDemo(sequelize);
     if (seeded.users || seeded.patterns) console.log(`Demo data: ${seeded.users} account(s) and ${seeded.patterns} pattern(s) added.`);
+    const changed = await changedDemoExamples();
+    if (changed.length) {
+      console.log(`Demo data: ${changed.map((f) => `examples/${f}`).join(', ')} changed since the demo patterns were made from ${changed.length === 1 ? 'it' : 'them'}. ` +
+        'To see the new text, stop and run `npm run demo:reset` (it deletes all local data in .data/start, your own changes too), then `npm start`.');
+    }
     await seedReviewDemo(sequelize);
     await seedShopDemo(sequelize);
 

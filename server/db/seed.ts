@@ -29,6 +29,41 @@ function titleFromFileName(file: string): string {
   return path.basename(file, '.loop').split(/[-_ ]+/).filter(Boolean).map((w) => w[0]!.toUpperCase() + w.slice(1)).join(' ');
 }
 
+/** The message of a demo pattern's revision 1 (how changedDemoExamples knows the pattern came from the file). */
+const demoMessage = (file: string) => `Demo pattern from examples/${file}`;
+
+/** The example files (`.loop`) of a folder, sorted; none when it cannot be read. */
+function exampleFiles(dir: string): string[] {
+  try {
+    return readdirSync(dir).filter((f) => f.endsWith('.loop')).sort();
+  } catch {
+    return [];
+  }
+}
+
+/**
+ * Example files whose demo pattern was seeded from an earlier text of the
+ * file: the pattern's revision 1 says it came from that file and its source
+ * differs from the file now. The seed never rewrites a pattern (revisions
+ * are history), so `npm start` names these and points at `npm run
+ * demo:reset`.
+ */
+export async function changedDemoExamples(opts: { examplesDir?: string } = {}): Promise<string[]> {
+  const designer = await User.findOne({ where: { email: 'designer@saltmarsh.example' } });
+  if (!designer) return [];
+  const dir = opts.examplesDir ?? path.join(repoRoot, 'examples');
+  const changed: string[] = [];
+  for (const file of exampleFiles(dir)) {
+    const source = readFileSync(path.join(dir, file), 'utf8');
+    const title = titleFromSource(source) ?? titleFromFileName(file);
+    const pattern = await Pattern.findOne({ where: { ownerId: designer.id, title } });
+    if (!pattern) continue;
+    const first = await Revision.findOne({ where: { patternId: pattern.id, number: 1 } });
+    if (first && first.message === demoMessage(file) && first.source !== source) changed.push(file);
+  }
+  return changed;
+}
+
 /** Seeds demo accounts and example patterns; returns what it created. */
 export async function seedDemo(sequelize: Sequelize, opts: { examplesDir?: string; bcryptCost?: number } = {}): Promise<{ users: number; patterns: number }> {
   let users = 0;
@@ -46,20 +81,14 @@ export async function seedDemo(sequelize: Sequelize, opts: { examplesDir?: strin
   const designer = byEmail.get('designer@saltmarsh.example')!;
 
   const dir = opts.examplesDir ?? path.join(repoRoot, 'examples');
-  let files: string[] = [];
-  try {
-    files = readdirSync(dir).filter((f) => f.endsWith('.loop')).sort();
-  } catch {
-    files = [];
-  }
-  for (const file of files) {
+  for (const file of exampleFiles(dir)) {
     const source = readFileSync(path.join(dir, file), 'utf8');
     const title = titleFromSource(source) ?? titleFromFileName(file);
     if (await Pattern.findOne({ where: { ownerId: designer.id, title } })) continue;
     await sequelize.transaction(async (transaction) => {
       const pattern = await Pattern.create({ ownerId: designer.id, title, latestRevision: 1 }, { transaction });
       const { summary, errors, warnings } = summarizeSource(source);
-      await Revision.create({ patternId: pattern.id, number: 1, source, authorId: designer.id, message: `Demo pattern from examples/${file}`, summary, errors, warnings }, { transaction });
+      await Revision.create({ patternId: pattern.id, number: 1, source, authorId: designer.id, message: demoMessage(file), summary, errors, warnings }, { transaction });
     });
     patterns++;
   }

@@ -3,12 +3,13 @@
  * examples/*.loop owned by the designer) is idempotent and stores revision 1
  * with the summary of the shared compiler.
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { compile, summarizeForStorage } from '../../shared/index.ts';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '../../server/db/seed.ts';
+import { changedDemoExamples, DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '../../server/db/seed.ts';
 import { Pattern, Revision, User } from '../../server/models/index.ts';
 import { startHarness, type ApiHarness } from './helpers.ts';
 
@@ -48,6 +49,23 @@ describe('demo seed', () => {
       const stored = revisions.find((r) => r.source === source);
       expect(stored, file).toBeDefined();
       expect(stored!.summary).toEqual(summarizeForStorage(compile(source)));
+    }
+  });
+
+  it('names the example files that changed since their demo pattern was seeded, and only those', async () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'lw-examples-'));
+    try {
+      const title = `Seed Check ${Date.now()}`;
+      const text = (rounds: number) => `title "${title}"\nyarn A "Harbour" #1d3557\ncast on 8 in A\nrounds 1-${rounds}: k to end\n`;
+      writeFileSync(path.join(dir, 'seed-check.loop'), text(2));
+      expect(await seedDemo(h.sequelize, { examplesDir: dir })).toMatchObject({ patterns: 1 });
+      expect(await changedDemoExamples({ examplesDir: dir })).toEqual([]);
+      writeFileSync(path.join(dir, 'seed-check.loop'), text(3));
+      expect(await changedDemoExamples({ examplesDir: dir })).toEqual(['seed-check.loop']);
+      // Seeding again leaves the pattern as it was (revisions are history).
+      expect(await seedDemo(h.sequelize, { examplesDir: dir })).toEqual({ users: 0, patterns: 0 });
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
     }
   });
 });
