@@ -35,6 +35,10 @@ export default defineConfig({
     proxy: { '/api': { target: 'http://127.0.0.1:4310', changeOrigin: false } },
   },
   worker: { format: 'es' },
+  // Only for `vite build`: the studio uses the plain compiler, so the trace
+  // recording of the incremental one is compiled out of the compile worker
+  // (shared/check/round.ts, __LW_NO_TRACE__).
+  define: process.argv.includes('build') ? { __LW_NO_TRACE__: 'true' } : {},
   build: {
     outDir: 'dist',
     emptyOutDir: true,

@@ -97,7 +97,9 @@ export function checkPatternTraced(ast: PatternAst, only: string | undefined, ha
   return check(ast, only, hadSyntaxErrors, incremental) as TracedCheckOutput;
 }
 
-function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boolean, incremental: CheckIncremental | null): CheckOutput | TracedCheckOutput {
+function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boolean, traced: CheckIncremental | null): CheckOutput | TracedCheckOutput {
+  // The studio's client build compiles tracing out (build-flags.d.ts).
+  const incremental = typeof __LW_NO_TRACE__ === 'undefined' ? traced : null;
   const rep = new Reporter();
   const early: Diagnostic[] = [];
   const head = resolveHeader(ast.header, early, origin);

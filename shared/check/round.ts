@@ -82,8 +82,10 @@ export function workRounds(
   const records: RoundRecord[] = [];
   const { ctx, store } = m;
   const stats: WorkRoundsStats = { reusedRounds: 0, workedRounds: 0 };
-  const resume = options.resume;
-  const recording = options.record === true || resume !== undefined;
+  // The studio's client build compiles tracing out (build-flags.d.ts).
+  const traced = typeof __LW_NO_TRACE__ === 'undefined';
+  const resume = traced ? options.resume : undefined;
+  const recording = traced && (options.record === true || resume !== undefined);
   const reports: ReportCall[] = [];
   const events: MachineEvent[] = [];
   const checkpoints: Checkpoint[] = [];

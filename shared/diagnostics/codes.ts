@@ -23,6 +23,9 @@ export interface CodeInfo {
 
 const s = (n: string | number, one: string, many = `${one}s`) => `${n} ${Number(n) === 1 ? one : many}`;
 const where = (f: Facts) => (f.segment ? ` in segment ${f.segment}` : '');
+/** " (size M)" for a finding of one size of several. */
+const sized = (f: Facts) => (f.size ? ` (size ${f.size})` : '');
+const isAre = (n: string | number) => (Number(n) === 1 ? 'is' : 'are');
 
 const list: CodeInfo[] = [
   // Unreadable characters
@@ -49,11 +52,11 @@ const list: CodeInfo[] = [
     message: (f) => `there is no chart called ${f.name}`, hint: (f) => (f.suggest ? `did you mean ${f.suggest}?` : `define it with a block "chart ${f.name}:", its key and its rows`) },
   // Unknown segment
   { code: 'LW204', severity: 'error',
-    message: (f) => `round ${f.round} has no segment called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `round ${f.round} has no segment called ${f.name}${sized(f)}`,
     hint: (f) => (f.known ? `segments on the needle then: ${f.known}` : 'a segment starts at a marker placed with "mark NAME"') },
   // Unknown marker
   { code: 'LW205', severity: 'error',
-    message: (f) => `round ${f.round} reaches no marker called ${f.name}${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `round ${f.round} reaches no marker called ${f.name}${sized(f)}`,
     hint: (f) => (f.known ? `markers on the needle: ${f.known}` : 'place it first with "mark NAME"') },
   // Declared twice
   { code: 'LW206', severity: 'error',
@@ -66,12 +69,8 @@ const list: CodeInfo[] = [
     message: (f) => `there is no size ${f.name}`, hint: (f) => `sizes: ${f.known}` },
   // Round without instructions
   { code: 'LW209', severity: 'error',
-    message: (f) => (f.through !== undefined && f.through !== f.round
-      ? `${f.word}s ${f.round} to ${f.through} have no instructions${f.size ? ` (size ${f.size})` : ''}`
-      : `${f.word} ${f.round} has no instructions${f.size ? ` (size ${f.size})` : ''}`),
-    hint: (f) => (f.through !== undefined && f.through !== f.round
-      ? `${f.word}s are worked from 1 to ${f.last}; write ${f.word}s ${f.round}-${f.through} or widen a range`
-      : `${f.word}s are worked from 1 to ${f.last}; write ${f.word} ${f.round} or widen a range`) },
+    message: (f) => `${f.word}${f.through > f.round ? `s ${f.round} to ${f.through} have` : ` ${f.round} has`} no instructions${sized(f)}`,
+    hint: (f) => `${f.word}s are worked from 1 to ${f.last}; write ${f.word}${f.through > f.round ? `s ${f.round}-${f.through}` : ` ${f.round}`} or widen a range` },
   // Chart key problem
   { code: 'LW210', severity: 'error', message: (f) => String(f.detail),
     hint: (f) => (f.hint ? String(f.hint) : undefined) },
@@ -92,52 +91,52 @@ const list: CodeInfo[] = [
     hint: (f) => `write one of ${f.known}, or leave the item line out` },
   // Count does not match the needle
   { code: 'LW301', severity: 'error',
-    message: (f) => `${f.word} ${f.round}${where(f)} works ${s(f.worked, 'stitch', 'stitches')} but ${f.onNeedle} ${Number(f.onNeedle) === 1 ? 'is' : 'are'} on the needle${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${f.word} ${f.round}${where(f)} works ${s(f.worked, 'stitch', 'stitches')} but ${f.onNeedle} ${isAre(f.onNeedle)} on the needle${sized(f)}`,
     hint: (f) => {
       const d = Number(f.onNeedle) - Number(f.worked);
       return d > 0 ? `work ${s(d, 'more stitch', 'more stitches')}, or end with "k to end"` : `work ${s(-d, 'stitch', 'stitches')} fewer`;
     } },
   // Repeat does not fit
   { code: 'LW302', severity: 'error',
-    message: (f) => `${f.word} ${f.round}${where(f)}: a repeat of ${s(f.repeat, 'stitch', 'stitches')} does not fit into ${f.available}, ${s(f.over, 'stitch', 'stitches')} left over${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${f.word} ${f.round}${where(f)}: a repeat of ${s(f.repeat, 'stitch', 'stitches')} does not fit into ${f.available}, ${s(f.over, 'stitch', 'stitches')} left over${sized(f)}`,
     hint: (f) => `add ${s(Number(f.repeat) - Number(f.over), 'stitch', 'stitches')}, take away ${f.over}, or change the repeat` },
   // Too few stitches for the stitch
   { code: 'LW303', severity: 'error',
-    message: (f) => `${f.word} ${f.round}${where(f)}: ${f.stitch} needs ${f.needs} stitches but only ${f.left} ${Number(f.left) === 1 ? 'is' : 'are'} left${f.size ? ` (size ${f.size})` : ''}` },
+    message: (f) => `${f.word} ${f.round}${where(f)}: ${f.stitch} needs ${f.needs} stitches but only ${f.left} ${isAre(f.left)} left${sized(f)}` },
   // Chart row wider than its segment
   { code: 'LW304', severity: 'error',
-    message: (f) => `chart ${f.chart} row ${f.row} is ${s(f.width, 'stitch', 'stitches')} wide but only ${f.available} ${Number(f.available) === 1 ? 'is' : 'are'} left in ${f.word} ${f.round}${where(f)}${f.size ? ` (size ${f.size})` : ''}` },
+    message: (f) => `chart ${f.chart} row ${f.row} is ${s(f.width, 'stitch', 'stitches')} wide but only ${f.available} ${isAre(f.available)} left in ${f.word} ${f.round}${where(f)}${sized(f)}` },
   // Segment without instructions
   { code: 'LW305', severity: 'error',
-    message: (f) => `${f.word} ${f.round}: segment ${f.segment} (${s(f.stitches, 'stitch', 'stitches')}) has no instructions${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${f.word} ${f.round}: segment ${f.segment} (${s(f.stitches, 'stitch', 'stitches')}) has no instructions${sized(f)}`,
     hint: (f) => `add a line "${f.word}s ... at ${f.segment}: ..." for this ${f.word}` },
   // Repeat that works no stitches
   { code: 'LW306', severity: 'error',
     message: () => 'this repeat works no stitches, so it cannot be repeated to the end or to a marker', hint: () => 'give it a fixed number of times' },
   // Marker not reached
   { code: 'LW307', severity: 'error',
-    message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}` },
+    message: (f) => `${f.word} ${f.round}: ${f.detail}${sized(f)}` },
   // Backing stitch not worked
   { code: 'LW401', severity: 'error',
-    message: (f) => `${f.word} ${f.round}: ${f.stitch} meets a backing stitch in ${f.yarn} and works it as a front stitch${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${f.word} ${f.round}: ${f.stitch} meets a backing stitch in ${f.yarn} and works it as a front stitch${sized(f)}`,
     hint: () => 'work it with "carry" (or let a ladder line work it), or close it with "close"' },
   // Backing stitch closed twice
   { code: 'LW402', severity: 'error',
-    message: (f) => `${f.word} ${f.round}: this backing stitch was already closed in ${f.word} ${f.closedIn}${f.size ? ` (size ${f.size})` : ''}` },
+    message: (f) => `${f.word} ${f.round}: this backing stitch was already closed in ${f.word} ${f.closedIn}${sized(f)}` },
   // Backing stitch closed without a neighbour
   { code: 'LW403', severity: 'error',
-    message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${f.word} ${f.round}: ${f.detail}${sized(f)}`,
     hint: () => 'a backing stitch closes together with the front stitch beside it (close = k2tog, close ssk)' },
   // Backing stitch never closed
   { code: 'LW404', severity: 'error',
-    message: (f) => `${s(f.count, 'backing stitch', 'backing stitches')} in ${f.yarn} set up here ${Number(f.count) === 1 ? 'is' : 'are'} still on the needle after the last ${f.word}${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${s(f.count, 'backing stitch', 'backing stitches')} in ${f.yarn} set up here ${isAre(f.count)} still on the needle after the last ${f.word}${sized(f)}`,
     hint: () => 'close each one with "close" (or end the ladder) before the last round' },
   // Nothing to close or carry
   { code: 'LW405', severity: 'error',
-    message: (f) => `${f.word} ${f.round}: ${f.detail}${f.size ? ` (size ${f.size})` : ''}` },
+    message: (f) => `${f.word} ${f.round}: ${f.detail}${sized(f)}` },
   // Float longer than the limit
   { code: 'LW501', severity: 'warning',
-    message: (f) => `${f.rounds}: yarn ${f.yarn} floats behind ${f.stitches} stitches (${f.inches} in / ${f.cm} cm), longer than the ${f.limit} limit${f.size ? ` (size ${f.size})` : ''}`,
+    message: (f) => `${f.rounds}: yarn ${f.yarn} floats behind ${f.stitches} stitches (${f.inches} in / ${f.cm} cm), longer than the ${f.limit} limit${sized(f)}`,
     hint: (f) => `catch ${f.yarn} every ${f.every} stitches or fewer, or add a backing column` },
   // Yarn colours too alike
   { code: 'LW502', severity: 'warning',
@@ -150,7 +149,7 @@ const list: CodeInfo[] = [
   { code: 'LW504', severity: 'error', message: (f) => String(f.detail) },
   // Pattern too large
   { code: 'LW901', severity: 'error',
-    message: (f) => `${f.detail}${f.size ? ` (size ${f.size})` : ''}; stopped working further ${f.word}s`,
+    message: (f) => `${f.detail}${sized(f)}; stopped working further ${f.word}s`,
     hint: () => 'check for a repeat count or round number with too many digits' },
   // More problems not shown
   { code: 'LW902', severity: 'info',
