@@ -27,6 +27,8 @@ export interface PlannedRound {
 
 /** The segments of a round with none (shared; never changed). */
 const NO_SEGMENTS: ReadonlyMap<string, RoundLine> = new Map();
+/** The ladders of a round with none (shared; planRounds copies it before adding one). */
+const NO_LADDERS: PlannedRound['ladders'] = [];
 
 /** A resolved range of a line for this size. */
 export interface LineRange { first: number; last: number; step: number }
@@ -92,7 +94,7 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       const near = ast.rounds.find((l) => (ranges.get(l)?.first ?? 0) > n) ?? ast.rounds[ast.rounds.length - 1];
       ctx.report('LW209', near.headSpan, { word: wordOf, round: n, through, last: max }, String(n));
     }
-    rounds.push({ number: n, side, whole: w, segments: w || !here ? NO_SEGMENTS : here, ladders: [] });
+    rounds.push({ number: n, side, whole: w, segments: w || !here ? NO_SEGMENTS : here, ladders: NO_LADDERS });
   }
   for (const ladder of ast.ladders) {
     const first = ctx.graded(ladder.first);
@@ -102,7 +104,10 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       continue;
     }
     for (let n = first; n <= Math.min(last, max); n++) {
-      rounds[n - 1].ladders.push({ ladder, phase: n === first ? 'setup' : n === last ? 'close' : 'work', first });
+      const r = rounds[n - 1];
+      // Copy on first write: rounds without a ladder share one empty list.
+      if (r.ladders === NO_LADDERS) r.ladders = [];
+      r.ladders.push({ ladder, phase: n === first ? 'setup' : n === last ? 'close' : 'work', first });
     }
   }
   return { rounds, ranges };

@@ -29,9 +29,10 @@ const caches = new WeakMap<Map<string, PreparedChart>, WeakMap<RoundLine, boolea
 /** A key naming what works a round, or null when the round may differ from an identical-looking one. */
 export function roundKey(p: PlannedRound, charts: Map<string, PreparedChart>): string | null {
   if (p.ladders.some((l) => l.phase !== 'work')) return null;
-  const lines = p.whole ? [p.whole] : [...p.segments.values()];
   // A round no line gives (LW209) passes the needle through unworked: rounds of a gap share too.
-  if (lines.length === 0) return `-/${p.ladders.map((l) => l.ladder.span.from).join(',')}`;
+  // (Asked once per round, up to 100,000 per size: no lists made for the plain cases.)
+  if (!p.whole && p.segments.size === 0) return p.ladders.length ? `-/${p.ladders.map((l) => l.ladder.span.from).join(',')}` : '-/';
+  const lines = p.whole ? [p.whole] : [...p.segments.values()];
   let cache = caches.get(charts);
   if (!cache) { cache = new WeakMap(); caches.set(charts, cache); }
   for (const l of lines) {
