@@ -4,8 +4,9 @@
  *
  * Default 1,000,000 cases (issue 8); the seed is printed first so a run can
  * be replayed. On the 2-core development machine, otherwise idle, that is
- * about 100 cases/s with two workers, so about 2.7 hours (far longer when
- * the machine is shared; `--runs 100000` takes about 16 minutes). Most of
+ * about 170 cases/s with two workers, so about 1.7 hours (1,000,000 cases
+ * took 99.7 minutes on 2 December; longer when the machine is shared;
+ * `--runs 100000` takes about 10 minutes). Most of
  * the time goes to the checker (shared/check) working models near its
  * 2,000,000-stitch bound: about 1% of the cases, mostly edits of
  * examples/broken/lw901-too-large.loop, take about 60% of the compile time.
@@ -54,7 +55,7 @@ const outDir = path.join(root, '.data', 'fuzz');
 const casesDir = path.join(outDir, 'cases');
 
 /**
- * Cases per run by default: the million issue 8 asks for (about 2.7 hours
+ * Cases per run by default: the million issue 8 asks for (about 1.7 hours
  * on the idle 2-core development machine; see the top of this file).
  */
 export const DEFAULT_RUNS = 1_000_000;
