@@ -18,6 +18,7 @@ import path from 'node:path';
 import { promisify } from 'node:util';
 import { runExport, type ExportFormat } from '../../server/services/exports/build.ts';
 import type { ApiStack } from './api.ts';
+import { processCpuMs } from './process-cpu.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
 const run = promisify(execFile);
@@ -35,18 +36,6 @@ export interface SaveCapacity {
 
 /** Export CPU per format, fastest of three, per demo pattern (ms). */
 export interface ExportCapacity { pattern: string; format: ExportFormat; cpuMs: number; bytes: number }
-
-/** CPU ms of a process from /proc (utime + stime); null elsewhere. */
-function processCpuMs(pid: number | null): number | null {
-  if (pid === null) return null;
-  try {
-    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
-    const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-    return (Number(f[11]) + Number(f[12])) * 10;
-  } catch {
-    return null;
-  }
-}
 
 function benchDbPid(): number | null {
   try {

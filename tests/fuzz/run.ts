@@ -42,12 +42,13 @@
  * slowest cases to .data/fuzz/cases/. Exit code 1 on any failure.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync, readFileSync, rmSync, writeFileSync, writeSync } from 'node:fs';
+import { mkdirSync, rmSync, writeFileSync, writeSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import { createInterface } from 'node:readline';
 import type { Readable } from 'node:stream';
 import fc from 'fast-check';
+import { processCpuMs } from '../bench/process-cpu.ts';
 import { assertSource, checkSource, fuzzCase, type CaseKind, type Failure } from './properties.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
@@ -66,22 +67,8 @@ export const FLAT_BUDGET_STITCHES = 100_000;
 /** A case that shows no progress for this much CPU time of its process is a hang. */
 const HANG_MS = 60_000;
 
-/**
- * CPU milliseconds a process has used (Linux /proc; elsewhere null, and the
- * watchdog falls back to wall time). On a busy machine wall time would call a
- * slow case a hang.
- */
-function processCpuMs(pid: number | undefined): number | null {
-  if (pid === undefined) return null;
-  try {
-    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
-    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-    // Fields 14 and 15 of stat (utime, stime), in clock ticks of 10 ms.
-    return (Number(fields[11]) + Number(fields[12])) * 10;
-  } catch {
-    return null;
-  }
-}
+// processCpuMs (tests/bench/process-cpu.ts): elsewhere than Linux it is null and the
+// watchdog falls back to wall time. On a busy machine wall time would call a slow case a hang.
 const KEEP_SLOWEST = 8;
 const MAX_LISTED_FAILURES = 50;
 
