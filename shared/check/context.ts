@@ -45,10 +45,9 @@ export class Reporter {
   report(code: string, span: Span, facts: Facts, size?: string, key = '', related?: { span: Span; message: string }[]): boolean {
     this.calls++;
     this.trace?.push({ code, span, facts, size, key, related });
+    if (this.madeAt(code, span, size, key)) return false;
     let known = this.seenAt.get(span);
-    if (known) {
-      for (let i = 0; i < known.length; i += 3) if (known[i] === code && known[i + 1] === size && known[i + 2] === key) return false;
-    } else this.seenAt.set(span, (known = []));
+    if (!known) this.seenAt.set(span, (known = []));
     // A few triples per place; past that (many keys at one place) only the string id is kept.
     if (known.length < 3 * 16) known.push(code, size, key);
     const id = `${code}@${span.from}-${span.to}/${size ?? ''}/${key}`;
@@ -72,12 +71,15 @@ export class Reporter {
    * tracing (the trace keeps every call with its facts).
    */
   repeat(code: string, span: Span, size: string | undefined, key: string): boolean {
-    if (this.trace) return false;
+    if (this.trace || !this.madeAt(code, span, size, key)) return false;
+    this.calls++;
+    return true;
+  }
+
+  /** True when this (code, size, key) was reported from this span object before (seenAt). */
+  private madeAt(code: string, span: Span, size: string | undefined, key: string): boolean {
     const known = this.seenAt.get(span);
-    if (!known) return false;
-    for (let i = 0; i < known.length; i += 3) {
-      if (known[i] === code && known[i + 1] === size && known[i + 2] === key) { this.calls++; return true; }
-    }
+    if (known) for (let i = 0; i < known.length; i += 3) if (known[i] === code && known[i + 1] === size && known[i + 2] === key) return true;
     return false;
   }
 
