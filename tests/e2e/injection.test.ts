@@ -14,7 +14,7 @@
  * out of an SVG text element.)
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DESIGNER, shot, startHarness, type Harness } from './harness.ts';
+import { DESIGNER, shot, signIn, startHarness, type Harness } from './harness.ts';
 
 const RUN = "window.__lwInjected=(window.__lwInjected||0)+1";
 const HOSTILE = {
@@ -80,12 +80,7 @@ describe('markup in titles, notes, yarn names and comments', () => {
       expect(await ran(), `${where}: payloads that ran`).toBe(0);
     };
 
-    await page.goto(`${h.baseUrl}/patterns`);
-    await page.waitForURL(/\/sign-in/);
-    await page.getByLabel('E-mail').fill(DESIGNER.email);
-    await page.getByLabel('Password').fill(DESIGNER.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/patterns$/);
+    await signIn(page, h.baseUrl);
     // The library lists the title as text, markup and all.
     await page.getByText(HOSTILE.title).first().waitFor();
     await inert('library');
