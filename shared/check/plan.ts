@@ -13,10 +13,14 @@
 import type { LadderLine, PatternAst, RoundLine } from '../notation';
 import { LIMITS, type SizeContext } from './context';
 
-/** What one round is made of. */
+/**
+ * What one round is made of. Round `i + 1` is `plan[i]` (its number is its
+ * place; its side follows from it, see `sideOf`). Entries are shared: every
+ * round a whole-round line gives alone, and every round of a gap, is the
+ * same object (a run of 100,000 such rounds makes one entry), so an entry is
+ * never changed once planned; a round with ladders gets its own.
+ */
 export interface PlannedRound {
-  number: number;
-  side: 'RS' | 'WS';
   /** The whole-round line, or null for a segment round (or a missing round). */
   whole: RoundLine | null;
   /** Segment lines by segment name (an empty, shared map for a whole round). */
@@ -27,8 +31,13 @@ export interface PlannedRound {
 
 /** The segments of a round with none (shared; never changed). */
 const NO_SEGMENTS: ReadonlyMap<string, RoundLine> = new Map();
-/** The ladders of a round with none (shared; planRounds copies it before adding one). */
+/** The ladders of a round with none (shared; planRounds gives a round its own entry before adding one). */
 const NO_LADDERS: PlannedRound['ladders'] = [];
+
+/** The side facing the knitter on round or row `n`: flat, even rows are WS. */
+export function sideOf(n: number, flat: boolean): 'RS' | 'WS' {
+  return flat && n % 2 === 0 ? 'WS' : 'RS';
+}
 
 /** A resolved range of a line for this size. */
 export interface LineRange { first: number; last: number; step: number }
@@ -77,9 +86,11 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       else whole[n] = line.index;
     }
   }
-  const rounds: PlannedRound[] = [];
+  const rounds: PlannedRound[] = new Array(max);
+  // The entry of the rounds a line gives alone, by line index, and of the rounds no line gives.
+  const alone: PlannedRound[] = [];
+  const gap: PlannedRound = { whole: null, segments: NO_SEGMENTS, ladders: NO_LADDERS };
   for (let n = 1; n <= max; n++) {
-    const side = flat && n % 2 === 0 ? 'WS' : 'RS';
     const w = whole[n] >= 0 ? ast.rounds[whole[n]] : null;
     const here = segs[n];
     if (w && here) {
@@ -94,7 +105,8 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       const near = ast.rounds.find((l) => (ranges.get(l)?.first ?? 0) > n) ?? ast.rounds[ast.rounds.length - 1];
       ctx.report('LW209', near.headSpan, { word: wordOf, round: n, through, last: max }, String(n));
     }
-    rounds.push({ number: n, side, whole: w, segments: w || !here ? NO_SEGMENTS : here, ladders: NO_LADDERS });
+    rounds[n - 1] = w ? (alone[w.index] ??= { whole: w, segments: NO_SEGMENTS, ladders: NO_LADDERS })
+      : here ? { whole: null, segments: here, ladders: NO_LADDERS } : gap;
   }
   for (const ladder of ast.ladders) {
     const first = ctx.graded(ladder.first);
@@ -104,9 +116,9 @@ export function planRounds(ctx: SizeContext, ast: PatternAst, flat: boolean, qui
       continue;
     }
     for (let n = first; n <= Math.min(last, max); n++) {
-      const r = rounds[n - 1];
-      // Copy on first write: rounds without a ladder share one empty list.
-      if (r.ladders === NO_LADDERS) r.ladders = [];
+      let r = rounds[n - 1];
+      // Entries without ladders are shared: the round gets its own before its first ladder.
+      if (r.ladders === NO_LADDERS) r = rounds[n - 1] = { whole: r.whole, segments: r.segments, ladders: [] };
       r.ladders.push({ ladder, phase: n === first ? 'setup' : n === last ? 'close' : 'work', first });
     }
   }

@@ -82,9 +82,8 @@ export interface ResumeFrom {
   firstLineSame: boolean;
 }
 
-/** Whether a planned round is the same in both compiles (same lines, same ladders in the same phase). */
+/** Whether the planned rounds at one place of both compiles' plans are the same (same lines, same ladders in the same phase). */
 export function samePlannedRound(o: PlannedRound, n: PlannedRound, map: NodeMap, firstLineSame: boolean): boolean {
-  if (o.number !== n.number || o.side !== n.side) return false;
   if (!sameNode(o.whole, n.whole, map)) return false;
   if (o.segments.size !== n.segments.size) return false;
   if (o.segments.size) {
@@ -121,8 +120,12 @@ export function mapSpan(map: NodeMap, s: Span): Span {
 export function changedRounds(old: PlannedRound[], plan: PlannedRound[], map: NodeMap, firstLineSame: boolean): { first: number; last: number } {
   const n = Math.max(old.length, plan.length);
   let first = n, last = -1;
+  let same = false;
   for (let i = 0; i < n; i++) {
-    const same = i < old.length && i < plan.length && samePlannedRound(old[i], plan[i], map, firstLineSame);
+    // Entries are shared (plan.ts): the same pair as the round before has the same answer.
+    if (!(i > 0 && i < old.length && i < plan.length && old[i] === old[i - 1] && plan[i] === plan[i - 1])) {
+      same = i < old.length && i < plan.length && samePlannedRound(old[i], plan[i], map, firstLineSame);
+    }
     if (!same) { if (first === n) first = i; last = i; }
   }
   return { first, last };

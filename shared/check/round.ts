@@ -12,7 +12,7 @@ import { LIMITS } from './context';
 import { leftNeedleAsFound, roundKey } from './reuse';
 import { measureFloats, type FloatRun } from './floats';
 import { FLAG } from './store';
-import type { PlannedRound, LineRange } from './plan';
+import { sideOf, type PlannedRound, type LineRange } from './plan';
 import type { ReportCall } from './context';
 import type { MachineEvent } from './machine';
 import type { Checkpoint, RoundsResumer, SizeTrace } from './resume';
@@ -100,7 +100,14 @@ export function workRounds(
     const trace = recording ? { plan, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted } : null;
     return { records, trace, stats };
   };
-  const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));
+  // Plan entries are shared (plan.ts): the same entry as the round before has the same key.
+  let keyAt = -2, keyWas: string | null = null;
+  const keyOf = (i: number): string | null => {
+    if (flat) return null;
+    if (!(keyAt === i - 1 && plan[i] === plan[keyAt])) keyWas = roundKey(plan[i], m.charts);
+    keyAt = i;
+    return keyWas;
+  };
 
   // The rounds before the first changed one come from the trace (resume.ts).
   const range = resume ? resume.changed(plan) : { first: 0, last: -1 };
@@ -136,6 +143,7 @@ export function workRounds(
 
   for (let pi = start; pi < plan.length; pi++) {
     const p = plan[pi];
+    const number = pi + 1, side = sideOf(number, flat);
     if (m.aborted) break;
     const key = keyOf(pi);
     repeats[pi] = key !== null && key === lastKey;
@@ -157,13 +165,13 @@ export function workRounds(
       const r = records[records.length - 1];
       // Written out rather than spread: a gap of tens of thousands of rounds makes one record each.
       records.push({
-        number: p.number, side: p.side, offset: r.offset, count: r.count, front: r.front, backing: r.backing, start: r.start, worked: r.worked,
+        number, side, offset: r.offset, count: r.count, front: r.front, backing: r.backing, start: r.start, worked: r.worked,
         markers: r.markers, segments: r.segments, floats: r.floats, lines: r.lines, span: r.span, note: r.note,
       });
       continue;
     }
     const reported = ctx.reporter.calls;
-    const ws = p.side === 'WS';
+    const ws = side === 'WS';
     let flags = store.flags.subarray(prevOff, prevOff + prevLen);
     let yarn = store.yarn.subarray(prevOff, prevOff + prevLen);
     let col = store.col.subarray(prevOff, prevOff + prevLen);
@@ -175,7 +183,7 @@ export function workRounds(
     const rsMarkers = ws ? turnMarkers(markers, prevLen) : markers;
     const segs = segmentsOf(rsMarkers, prevLen, ws);
     m.load(flags, yarn, col, markers.map((x) => ({ ...x })), segs);
-    m.roundNo = p.number; m.side = p.side; m.word = flat ? 'row' : 'round';
+    m.roundNo = number; m.side = side; m.word = flat ? 'row' : 'round';
     m.ladders = p.ladders.map((l): LadderRun => ({
       ladder: l.ladder, phase: l.phase, count: 0, src: m.sources.of(l.ladder), yarn: ctx.yarn(l.ladder.yarn, defaultYarn),
       every: l.ladder.every ? Math.max(0, ctx.graded(l.ladder.every)) : 0,
@@ -184,7 +192,7 @@ export function workRounds(
     for (const l of m.ladders) {
       if (l.ladder.every && l.every < 1) ctx.report('LW103', l.ladder.every.span, { what: 'a ladder spacing', need: 'at least 1 stitch', value: l.every });
       if (l.ladder.segment && !segs.some((s) => s.name === l.ladder.segment!.name)) {
-        ctx.report('LW204', l.ladder.segment.span, { round: p.number, name: l.ladder.segment.name, known: segs.map((s) => s.name).join(', ') });
+        ctx.report('LW204', l.ladder.segment.span, { round: number, name: l.ladder.segment.name, known: segs.map((s) => s.name).join(', ') });
       }
     }
     const lines: number[] = [];
@@ -205,7 +213,7 @@ export function workRounds(
       const names = new Set(segs.map((s) => s.name));
       let misnamed = false;
       for (const [name, line] of p.segments) {
-        if (!names.has(name)) { misnamed = true; ctx.report('LW204', line.segment!.span, { round: p.number, name, known: [...names].join(', ') }); }
+        if (!names.has(name)) { misnamed = true; ctx.report('LW204', line.segment!.span, { round: number, name, known: [...names].join(', ') }); }
       }
       for (let si = 0; si < segs.length && !m.aborted; si++) {
         const seg = segs[si];
@@ -218,7 +226,7 @@ export function workRounds(
           lines.push(m.sources.of(line));
         } else if (seg.to > seg.from && !misnamed) {
           const first = [...p.segments.values()][0];
-          ctx.report('LW305', first.headSpan, { word: m.word, round: p.number, segment: seg.name, stitches: onNeedle }, `${p.number}:${seg.name}`);
+          ctx.report('LW305', first.headSpan, { word: m.word, round: number, segment: seg.name, stitches: onNeedle }, `${number}:${seg.name}`);
         }
         if (!line) m.problem = true; // LW305 (or LW204) already says why
         finishScope(m, onNeedle, line?.span ?? span);
@@ -234,12 +242,12 @@ export function workRounds(
     if (lines.length) span = m.sources.spans[lines[0]];
     const note = p.whole?.note ?? [...p.segments.values()].find((l) => l.note)?.note ?? null;
     records.push({
-      number: p.number, side: p.side, offset, count, front: m.front, backing: m.backing, start, worked,
+      number, side, offset, count, front: m.front, backing: m.backing, start, worked,
       markers: m.markersOut, segments: segs, floats, lines, span, note,
     });
     prevKey = key;
     prevStable = key !== null && !m.aborted && ctx.reporter.calls === reported && leftNeedleAsFound(m, markers, offset, count);
-    prevOff = offset; prevLen = count; prevMarkers = m.markersOut; prevSide = p.side;
+    prevOff = offset; prevLen = count; prevMarkers = m.markersOut; prevSide = side;
   }
   void prevSide;
   if (recording && !m.aborted) checkpoints[records.length] = checkpoint();
