@@ -10,7 +10,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compile } from '../../shared/index.ts';
 import { applyMutation, type Mutation } from '../fuzz/mutate.ts';
-import { assertSource, checkSource, firstDifference, fuzzCase, loadCorpus, spanProblem } from '../fuzz/properties.ts';
+import { assertSource, budgetFor, checkSource, firstDifference, fuzzCase, loadCorpus, spanProblem } from '../fuzz/properties.ts';
 
 const corpus = loadCorpus();
 
@@ -92,5 +92,19 @@ describe('the fuzz harness itself', () => {
     // Three sizes, each casting on 1000: the model holds 3000 stitches though no round is worked.
     const r = checkSource('sizes S M L\nyarn A "Harbour" #1d3557\ncast on 1000\n');
     expect(r.stitches).toBe(3000);
+    expect(r.rounds).toBe(0);
+  });
+
+  it('counts the round records of every size, a gap of rounds without stitches too', () => {
+    // Rounds 2-499 have no instructions (LW209) and there is nothing on the needle, yet each size keeps 500 records.
+    const r = checkSource('sizes S M L\nyarn A "Harbour" #1d3557\ncast on 0\nround 1: k to end\nround 500: k to end\n');
+    expect(r.stitches).toBe(0);
+    expect(r.rounds).toBe(1500);
+  });
+
+  it('gives models past 100,000 stitches and rounds a budget in proportion', () => {
+    expect(budgetFor(40)).toBe(100);
+    expect(budgetFor(100_000)).toBe(100);
+    expect(budgetFor(300_000)).toBe(300);
   });
 });
