@@ -37,7 +37,7 @@ export default defineConfig({
   worker: { format: 'es' },
   // Only for `vite build`: the studio uses the plain compiler, so the trace
   // recording of the incremental one is compiled out of the compile worker
-  // (shared/check/round.ts, __LW_NO_TRACE__).
+  // (`TRACED` in shared/check/context.ts, __LW_NO_TRACE__).
   define: process.argv.includes('build') ? { __LW_NO_TRACE__: 'true' } : {},
   build: {
     outDir: 'dist',

@@ -8,6 +8,9 @@ import type { Graded, NameRef } from '../notation';
 import { makeDiagnostic, closestName, type Facts } from '../diagnostics';
 import type { ResolvedHeader } from './header';
 
+/** False in the studio's client build, which compiles trace recording out (build-flags.d.ts). */
+export const TRACED = typeof __LW_NO_TRACE__ === 'undefined';
+
 /** Fixed bounds that keep any input finite. */
 export const LIMITS = {
   /** Stitches worked per size, over all rounds. */
@@ -44,7 +47,7 @@ export class Reporter {
   /** Reports once per (code, place, size, key); returns false when suppressed. */
   report(code: string, span: Span, facts: Facts, size?: string, key = '', related?: { span: Span; message: string }[]): boolean {
     this.calls++;
-    this.trace?.push({ code, span, facts, size, key, related });
+    if (TRACED) this.trace?.push({ code, span, facts, size, key, related });
     if (this.madeAt(code, span, size, key)) return false;
     let known = this.seenAt.get(span);
     if (!known) this.seenAt.set(span, (known = []));
@@ -71,7 +74,7 @@ export class Reporter {
    * tracing (the trace keeps every call with its facts).
    */
   repeat(code: string, span: Span, size: string | undefined, key: string): boolean {
-    if (this.trace || !this.madeAt(code, span, size, key)) return false;
+    if ((TRACED && this.trace) || !this.madeAt(code, span, size, key)) return false;
     this.calls++;
     return true;
   }

@@ -7,7 +7,7 @@
 import type { Diagnostic, PatternHeader, RoundSummary, Span } from '../types';
 import { STITCHES, type PatternAst, type StitchInfo } from '../notation';
 import { sortDiagnostics } from '../diagnostics';
-import { Reporter, SizeContext } from './context';
+import { Reporter, SizeContext, TRACED } from './context';
 import { resolveHeader } from './header';
 import { prepareCharts } from './charts';
 import { SourceTable } from './sources';
@@ -99,7 +99,7 @@ export function checkPatternTraced(ast: PatternAst, only: string | undefined, ha
 
 function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boolean, traced: CheckIncremental | null): CheckOutput | TracedCheckOutput {
   // The studio's client build compiles tracing out (build-flags.d.ts).
-  const incremental = typeof __LW_NO_TRACE__ === 'undefined' ? traced : null;
+  const incremental = TRACED ? traced : null;
   const rep = new Reporter();
   const early: Diagnostic[] = [];
   const head = resolveHeader(ast.header, early, origin);

@@ -10,7 +10,7 @@
 import { OP } from '../notation';
 import type { Span } from '../types';
 import type { LadderLine } from '../notation';
-import { LIMITS, type SizeContext } from './context';
+import { LIMITS, TRACED, type SizeContext } from './context';
 import { FLAG, StitchStore } from './store';
 import type { SourceTable } from './sources';
 import type { PreparedChart } from './charts';
@@ -104,17 +104,17 @@ export class Machine {
 
   noteClosed(key: string, at: { round: number; span: Span }): void {
     this.closed.set(key, at);
-    this.trace?.push({ kind: 'closed', key, round: at.round, span: at.span });
+    if (TRACED) this.trace?.push({ kind: 'closed', key, round: at.round, span: at.span });
   }
 
   noteMerged(key: string): void {
     this.merged.add(key);
-    this.trace?.push({ kind: 'merged', key });
+    if (TRACED) this.trace?.push({ kind: 'merged', key });
   }
 
   noteReportedColumn(col: number): void {
     this.reportedColumns.add(col);
-    this.trace?.push({ kind: 'reported', col });
+    if (TRACED) this.trace?.push({ kind: 'reported', col });
   }
 
   constructor(

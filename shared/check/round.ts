@@ -8,7 +8,7 @@ import { OP, type PatternAst, type RoundLine } from '../notation';
 import type { Span } from '../types';
 import { START_SEGMENT, type LadderRun, type Machine, type MarkerPos, type SegmentRange } from './machine';
 import { execOps } from './ops';
-import { LIMITS } from './context';
+import { LIMITS, TRACED } from './context';
 import { leftNeedleAsFound, roundKey } from './reuse';
 import { measureFloats, type FloatRun } from './floats';
 import { FLAG } from './store';
@@ -83,7 +83,7 @@ export function workRounds(
   const { ctx, store } = m;
   const stats: WorkRoundsStats = { reusedRounds: 0, workedRounds: 0 };
   // The studio's client build compiles tracing out (build-flags.d.ts).
-  const traced = typeof __LW_NO_TRACE__ === 'undefined';
+  const traced = TRACED;
   const resume = traced ? options.resume : undefined;
   const recording = traced && (options.record === true || resume !== undefined);
   const reports: ReportCall[] = [];
@@ -100,17 +100,10 @@ export function workRounds(
     const trace = recording ? { plan, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted } : null;
     return { records, trace, stats };
   };
-  // Plan entries are shared (plan.ts): the same entry as the round before has the same key.
-  let keyAt = -2, keyWas: string | null = null;
-  const keyOf = (i: number): string | null => {
-    if (flat) return null;
-    if (!(keyAt === i - 1 && plan[i] === plan[keyAt])) keyWas = roundKey(plan[i], m.charts);
-    keyAt = i;
-    return keyWas;
-  };
+  const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));
 
   // The rounds before the first changed one come from the trace (resume.ts).
-  const range = resume ? resume.changed(plan) : { first: 0, last: -1 };
+  const range = traced && resume ? resume.changed(plan) : { first: 0, last: -1 };
   const start = range.first;
   // Room for every round at the cast-on width (plus a little for shaping and backing), to grow rarely.
   const expected = Math.min(castOn.count * (plan.length + 1) * 1.1 + 1024, LIMITS.stitchesPerSize * 1.05) | 0;
@@ -118,7 +111,8 @@ export function workRounds(
   let prevKey: string | null = null;
   let prevStable = false;
   let lastKey: string | null = null; // the key of the plan entry before the current one
-  if (start > 0) {
+  // `traced &&` lets the client build drop the resuming code (a constant there).
+  if (traced && start > 0) {
     m.store.reserve(expected);
     ({ prevOff, prevLen, prevMarkers, prevStable } = resume!.restore(m, start, { records, checkpoints, repeats }));
     prevKey = keyOf(start - 1);
@@ -145,15 +139,16 @@ export function workRounds(
     const p = plan[pi];
     const number = pi + 1, side = sideOf(number, flat);
     if (m.aborted) break;
-    const key = keyOf(pi);
+    // Plan entries are shared (plan.ts): the same entry as the round before has its key.
+    const key = p === plan[pi - 1] ? lastKey : keyOf(pi);
     repeats[pi] = key !== null && key === lastKey;
     lastKey = key;
-    if (resume && pi > range.last) {
+    if (traced && resume && pi > range.last) {
       // Back in the state the earlier compile had here? Then the rest is the same (resume.ts).
       const taken = resume.splice(m, pi, { prevOff, prevLen, prevMarkers, prevStable }, { records, checkpoints, repeats, events: events.length, reports: reports.length, planLength: plan.length });
       if (taken > 0) { stats.reusedRounds += taken; return done(); }
     }
-    if (recording) checkpoints[pi] = checkpoint();
+    if (traced && recording) checkpoints[pi] = checkpoint();
     stats.workedRounds++;
     m.logical += prevLen;
     if (key !== null && key === prevKey && prevStable) {
