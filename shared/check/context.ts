@@ -19,6 +19,14 @@ export const LIMITS = {
   rounds: 100_000,
   /** Repeat passes that work no stitch, per size (guards repeats of zero-stitch operations). */
   steps: 2_000_000,
+  /**
+   * Operations carried out per size (each operation of a line once per pass
+   * of its repeat). The other bounds leave the operations of one pass free:
+   * a repeat of many operations that together work one stitch a pass would
+   * otherwise run for minutes below the stitch bound. Real patterns carry out
+   * far fewer than one per stitch (rounds repeated unchanged are not worked again).
+   */
+  operations: 5_000_000,
   /** Diagnostics per code per size before LW902. */
   perCode: 50,
 } as const;

@@ -43,6 +43,12 @@ export interface StitchLevel {
   rounds: RoundRecord[];
   /** Every backing column set up (store.col indexes it). */
   columns: ColumnInfo[];
+  /**
+   * Operations carried out while working the size (an operation once per
+   * pass of its repeat; a round repeated on an unchanged needle is not worked
+   * again): the checker's work besides the stitches, bounded by LIMITS.operations.
+   */
+  operations: number;
 }
 
 /** One size of the pattern, worked. */
@@ -147,7 +153,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
       name: size,
       castOn: Math.max(0, castOnCount),
       rounds: records.map((r) => (incremental ? incremental.summary(r, yarnsKey, () => summarize(r, head.yarns)) : summarize(r, head.yarns))),
-      stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns },
+      stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns, operations: m.ops },
     });
   });
   const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };

@@ -50,6 +50,8 @@ export class Machine {
   /** Stitches worked so far in this size (logical, for the bound). */
   logical = 0;
   steps = 0;
+  /** Operations carried out so far in this size (for LIMITS.operations). */
+  ops = 0;
   aborted = false;
 
   // ---- the round being worked ----

@@ -25,7 +25,7 @@
  */
 import type { RoundLine } from '../notation';
 import type { Span } from '../types';
-import type { ReportCall } from './context';
+import { LIMITS, type ReportCall } from './context';
 import type { ColumnInfo, Machine, MachineEvent, MarkerPos } from './machine';
 import type { PlannedRound } from './plan';
 import type { RoundRecord } from './round';
@@ -41,6 +41,8 @@ export interface Checkpoint {
   columns: number;
   logical: number;
   steps: number;
+  /** Operations carried out so far (an edit may change it: see splice). */
+  ops: number;
   prevOff: number;
   prevLen: number;
   prevMarkers: MarkerPos[];
@@ -294,13 +296,18 @@ export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
         into.checkpoints.push(t.checkpoints[i]);
         into.repeats.push(t.repeats[i]);
       }
-      m.logical = cp.logical; m.steps = cp.steps;
+      m.logical = cp.logical; m.steps = cp.steps; m.ops = cp.ops;
       prefixLen = cp.storeLen;
       return { prevOff: cp.prevOff, prevLen: cp.prevLen, prevMarkers: cp.prevMarkers, prevStable: cp.prevStable };
     },
     splice(m, pi, now, into) {
       if (!sameState(m, { ...now, repeats: into.repeats }, pi, from)) return 0;
       const cp = t.checkpoints[pi];
+      // The rounds taken over carry out what they did before; with this compile's count
+      // before them they must still end within the bound, or working them would stop on the way.
+      const last = t.checkpoints[t.checkpoints.length - 1];
+      const dOps = m.ops - cp.ops;
+      if (last.ops + dOps > LIMITS.operations) return 0;
       const d = m.store.length - cp.storeLen, dEvents = into.events - cp.events, dReports = into.reports - cp.reports;
       const offset = (o: number): number => {
         if (o >= cp.storeLen) return o + d;
@@ -316,12 +323,11 @@ export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
       for (let i = pi; i < t.checkpoints.length; i++) {
         const c = t.checkpoints[i];
         const po = offset(c.prevOff);
-        into.checkpoints[i] = d === 0 && dEvents === 0 && dReports === 0 && po === c.prevOff ? c
-          : { ...c, storeLen: c.storeLen + d, events: c.events + dEvents, reports: c.reports + dReports, prevOff: po };
+        into.checkpoints[i] = d === 0 && dEvents === 0 && dReports === 0 && dOps === 0 && po === c.prevOff ? c
+          : { ...c, storeLen: c.storeLen + d, events: c.events + dEvents, reports: c.reports + dReports, ops: c.ops + dOps, prevOff: po };
         if (i > pi && i < into.planLength) into.repeats[i] = t.repeats[i];
       }
-      const last = t.checkpoints[t.checkpoints.length - 1];
-      m.logical = last.logical; m.steps = last.steps;
+      m.logical = last.logical; m.steps = last.steps; m.ops = last.ops + dOps;
       return t.records.length - pi;
     },
   };

@@ -132,7 +132,7 @@ export function workRounds(
   const defaultYarn = castOn.yarn;
   const checkpoint = (): Checkpoint => ({
     storeLen: store.length, events: events.length, reports: reports.length, columns: m.columns.length,
-    logical: m.logical, steps: m.steps, prevOff, prevLen, prevMarkers, prevStable,
+    logical: m.logical, steps: m.steps, ops: m.ops, prevOff, prevLen, prevMarkers, prevStable,
   });
 
   for (let pi = start; pi < plan.length; pi++) {

@@ -93,3 +93,32 @@ describe('a gap of tens of thousands of rounds', () => {
     expect(store.length).toBeLessThan(100);
   });
 });
+
+// The stitch and idle-pass bounds leave the operations of one pass free: a
+// repeat of hundreds of operations that together make one stitch a pass ran
+// for minutes below the stitch bound (found by `npm run fuzz`). Operations
+// carried out are bounded too (LIMITS.operations) and counted in the model.
+describe('operations carried out', () => {
+  const markPairs = Array.from({ length: 200 }, () => 'mark x, unmark x').join(', ');
+
+  it('a repeat of 400 operations and a yo stops at 5,000,000 operations (LW901), well before the stitch bound', () => {
+    const result = compile(`${header}round 1: (${markPairs}, yo) 99999999 times\n`);
+    const lw901 = result.diagnostics.find((d) => d.code === 'LW901');
+    expect(lw901?.message).toContain('more than 5,000,000 operations would be carried out');
+    // 401 operations a pass: about 12,469 passes (one yo each) fit in the bound.
+    expect(result.sizes[0].stitches.operations).toBeLessThanOrEqual(5_000_001);
+    expect(result.sizes[0].stitches.store.length).toBeLessThan(10 + 12_500);
+  });
+
+  it('counts each operation once per pass: 20 flat rows of (k1, p1) to end on 50,000 stitches carry out 1,000,020', () => {
+    // Per row: the group itself, then 25,000 passes of k1 and p1 (flat rows turn, so no row is taken over from another).
+    const result = compile(`yarn A "Deep Harbour" #1d3557\nwork flat\ncast on 50000\nrows 1-20: (k1, p1) to end\n`);
+    expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    expect(result.sizes[0].stitches.operations).toBe(20 * (1 + 2 * 25_000));
+  });
+
+  it('a round repeated on an unchanged needle is not worked again, so its operations count once', () => {
+    const result = compile(`${header}rounds 1-20: (k1, p1) to end\n`);
+    expect(result.sizes[0].stitches.operations).toBe(1 + 2 * 5);
+  });
+});
