@@ -174,9 +174,9 @@ export function canonicalJson(r: CompileResult): string {
 /** A property failure: what went wrong, with the error's stack when the compiler threw. */
 /** Per-case time budget in ms (issue 8). */
 export const BUDGET_MS = 100;
-/** Models up to this many units (stitches plus round records, over all sizes) get the flat budget; larger ones a proportional one. */
+/** Models up to this many units (stitches, round records and operations carried out, over all sizes) get the flat budget; larger ones a proportional one. */
 export const FLAT_BUDGET_UNITS = 100_000;
-/** The time budget of a case whose model holds `units` units (stitches plus round records), in ms. */
+/** The time budget of a case whose model holds `units` units (stitches, round records and operations carried out), in ms. */
 export function budgetFor(units: number, budgetMs = BUDGET_MS): number {
   return budgetMs * Math.max(1, units / FLAT_BUDGET_UNITS);
 }
@@ -189,10 +189,11 @@ export interface Failure { kind: 'throw' | 'span' | 'determinism' | 'ok-flag' | 
  * programs on a busy machine do not count) and in wall-clock milliseconds,
  * the stitches in the model over every size: the cast-on plus every
  * round's stitches (a round repeated on an unchanged needle counts again,
- * though it shares its stitches; see `modelStitches`), and its round
- * records over every size (`rounds`).
+ * though it shares its stitches; see `modelStitches`), its round
+ * records over every size (`rounds`) and the operations the checker
+ * carried out over every size (`operations`, StitchLevel.operations).
  */
-export interface CaseResult { failure: Failure | null; cpuMs: number; wallMs: number; stitches: number; rounds: number }
+export interface CaseResult { failure: Failure | null; cpuMs: number; wallMs: number; stitches: number; rounds: number; operations: number }
 
 function cpuNow(): number {
   const u = process.cpuUsage();
@@ -230,11 +231,12 @@ export function checkSource(source: string): CaseResult {
     second = timed();
   } catch (err) {
     const e = err instanceof Error ? err : new Error(String(err));
-    return { failure: { kind: 'throw', message: `${e.name}: ${e.message}`, stack: e.stack }, cpuMs, wallMs, stitches: 0, rounds: 0 };
+    return { failure: { kind: 'throw', message: `${e.name}: ${e.message}`, stack: e.stack }, cpuMs, wallMs, stitches: 0, rounds: 0, operations: 0 };
   }
   const stitches = modelStitches(first);
   const rounds = first.sizes.reduce((n, s) => n + s.stitches.rounds.length, 0);
-  const result = (failure: Failure | null): CaseResult => ({ failure, cpuMs, wallMs, stitches, rounds });
+  const operations = first.sizes.reduce((n, s) => n + s.stitches.operations, 0);
+  const result = (failure: Failure | null): CaseResult => ({ failure, cpuMs, wallMs, stitches, rounds, operations });
   const starts = lineStarts(source);
   for (const d of first.diagnostics) {
     const p = spanProblem(source, starts, d.span) ?? d.related?.map((r) => spanProblem(source, starts, r.span)).find((x) => x) ?? null;

@@ -18,12 +18,16 @@
  * model (the checker allows 2,000,000 stitches per size, and a few
  * characters such as `cast on 999999` or `kfb to end` over 20 rounds reach
  * it), so for models over 100,000 units the budget grows linearly: 100 ms
- * per 100,000 units, the rate the bench's growth goal implies. A unit is a
- * stitch or a round record: the checker also allows round 100,000 in every
- * size, and `round 100000` over three sizes makes 300,000 round records
- * (and their summaries) with no stitch at all. Rounds were first left out;
- * the million-case run of 2 December found such a case (about 0.5 µs per
- * round record, as much as a stitch costs in the large models). A case
+ * per 100,000 units, the rate the bench's growth goal implies. A unit is
+ * what the checker's bounds count (shared/check/context.ts LIMITS): a
+ * stitch, a round record or an operation carried out. The checker allows
+ * round 100,000 in every size, so `round 100000` over three sizes makes
+ * 300,000 round records (and their summaries) with no stitch at all; and it
+ * allows 2,000,000 operations per size, so a repeat of twenty operations
+ * that together work one stitch a pass carries out twenty times as many
+ * operations as it makes stitches. Stitches alone were counted at first;
+ * the million-case runs of 2 December found a case of each (about 0.5 µs per
+ * round record, 0.15 µs per operation; a stitch costs up to 0.8 µs). A case
  * over its budget is timed twice more and fails only when every timing is
  * over.
  *
@@ -132,13 +136,13 @@ function child(args: Args): number {
       writeSync(3, `${p}\n`);
       const result = checkSource(c.source);
       let ms = result.cpuMs;
-      const units = result.stitches + result.rounds;
+      const units = result.stitches + result.rounds + result.operations;
       const budget = budgetFor(units, args.budgetMs);
       if (result.failure) record(c.source, c.kind, p, result.failure);
       else if (ms > budget) {
         // Confirm before blaming the compiler: a timing can still be disturbed (GC, page faults).
         for (let i = 0; i < 2 && ms > budget; i++) ms = Math.min(ms, checkSource(c.source).cpuMs);
-        if (ms > budget) record(c.source, c.kind, p, { kind: 'slow', message: `compile took ${ms.toFixed(1)} ms CPU (budget ${budget.toFixed(0)} ms for ${result.stitches} stitches and ${result.rounds} rounds), ${c.source.length} chars` });
+        if (ms > budget) record(c.source, c.kind, p, { kind: 'slow', message: `compile took ${ms.toFixed(1)} ms CPU (budget ${budget.toFixed(0)} ms for ${result.stitches} stitches, ${result.rounds} rounds and ${result.operations} operations), ${c.source.length} chars` });
       }
       stats.cases++;
       stats.cpuMs += ms;
@@ -241,7 +245,7 @@ async function runRange(args: Args, first: number, last: number, progress: Int32
  * the figures.
  */
 async function supervise(args: Args): Promise<number> {
-  console.log(`fuzz: ${args.runs} cases, seed ${args.seed}, ${args.workers} worker(s), budget ${args.budgetMs} ms CPU per compile (100 ms per 100k stitches and rounds above that)`);
+  console.log(`fuzz: ${args.runs} cases, seed ${args.seed}, ${args.workers} worker(s), budget ${args.budgetMs} ms CPU per compile (100 ms per 100k stitches, rounds and operations above that)`);
   console.log(`replay one case with: npm run fuzz -- --seed ${args.seed} --path <N>`);
   rmSync(casesDir, { recursive: true, force: true });
   mkdirSync(casesDir, { recursive: true });
@@ -295,7 +299,7 @@ function report(args: Args, t: Stats, seconds: number, complete = true): void {
   console.log(`\n${complete ? '' : `stopped early: ${t.cases} of ${args.runs} cases; `}${t.cases} cases in ${(seconds / 60).toFixed(1)} min (${(t.cases / seconds).toFixed(0)} cases/s), mean compile ${(t.cpuMs / Math.max(1, t.cases)).toFixed(2)} ms CPU`);
   console.log('by kind:');
   for (const [kind, k] of Object.entries(t.byKind).sort()) console.log(`  ${kind.padEnd(18)} ${String(k.n).padStart(8)} cases  mean ${(k.ms / k.n).toFixed(2)} ms  max ${k.max.toFixed(1)} ms`);
-  console.log(`${t.overFlat} cases over ${args.budgetMs} ms CPU; ${t.large} models over ${FLAT_BUDGET_UNITS} stitches and rounds, the slowest of them ${t.largeWorstRate.toFixed(1)} ms per ${FLAT_BUDGET_UNITS}`);
+  console.log(`${t.overFlat} cases over ${args.budgetMs} ms CPU; ${t.large} models over ${FLAT_BUDGET_UNITS} stitches, rounds and operations, the slowest of them ${t.largeWorstRate.toFixed(1)} ms per ${FLAT_BUDGET_UNITS}`);
   console.log('slowest cases (faster of two compiles; CPU ms, wall ms):');
   for (const s of t.slowest) {
     console.log(`  ${s.ms.toFixed(1).padStart(7)} ms ${s.wallMs.toFixed(1).padStart(7)} ms  ${s.kind.padEnd(18)} ${String(s.chars).padStart(6)} chars ${String(s.stitches).padStart(8)} stitches  --seed ${args.seed} --path ${s.path}`);
@@ -315,9 +319,9 @@ function replay(args: Args): number {
     fc.property(fuzzCase(), (c) => {
       if (!shown) {
         shown = true;
-        const { cpuMs, wallMs, stitches, rounds, failure } = checkSource(c.source);
-        console.log(`case (${c.kind}), ${c.source.length} chars, ${stitches} stitches, ${rounds} rounds, compile ${cpuMs.toFixed(1)} ms CPU (${wallMs.toFixed(1)} ms wall), ` +
-          `budget ${budgetFor(stitches + rounds, args.budgetMs).toFixed(0)} ms, ${failure ? `${failure.kind}: ${failure.message}` : 'no property failure'}`);
+        const { cpuMs, wallMs, stitches, rounds, operations, failure } = checkSource(c.source);
+        console.log(`case (${c.kind}), ${c.source.length} chars, ${stitches} stitches, ${rounds} rounds, ${operations} operations, compile ${cpuMs.toFixed(1)} ms CPU (${wallMs.toFixed(1)} ms wall), ` +
+          `budget ${budgetFor(stitches + rounds + operations, args.budgetMs).toFixed(0)} ms, ${failure ? `${failure.kind}: ${failure.message}` : 'no property failure'}`);
         console.log('----- source -----\n' + c.source + '\n------------------');
       }
       assertSource(c.source);

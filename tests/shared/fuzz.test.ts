@@ -85,6 +85,8 @@ describe('the fuzz harness itself', () => {
     expect(r.failure).toBeNull();
     // The cast-on's 10 and 3 rounds of 10 (common practice: a plain round works every stitch once).
     expect(r.stitches).toBe(40);
+    // Round 1's one operation; rounds 2-3 repeat it on an unchanged needle and are not worked again (reuse.ts).
+    expect(r.operations).toBe(1);
     expect(r.cpuMs).toBeGreaterThanOrEqual(0);
   });
 
