@@ -122,3 +122,12 @@ describe('operations carried out', () => {
     expect(result.sizes[0].stitches.operations).toBe(1 + 2 * 5);
   });
 });
+
+describe('a cast-on past the stitch bound', () => {
+  it('stops each size at the cast-on (LW901) with nothing worked (found by `npm run fuzz`: room for 2,000,000 stitches was made first)', () => {
+    const result = compile('sizes S M L XL\nyarn A "Deep Harbour" #1d3557\ncast on 4294967297\nrounds 1-11: p to end\n');
+    const lw901 = result.diagnostics.filter((d) => d.code === 'LW901');
+    expect(lw901.map((d) => d.size)).toEqual(['S', 'M', 'L', 'XL']);
+    expect(result.sizes.map((s) => s.stitches.store.length)).toEqual([0, 0, 0, 0]);
+  });
+});
