@@ -236,6 +236,12 @@ export class Machine {
     return !this.aborted;
   }
 
+  /** Counts an operation carried out; false (after LW901) past the bound. */
+  operate(span: Span): boolean {
+    if (++this.ops > LIMITS.operations) { this.abort(span, `more than ${LIMITS.operations.toLocaleString('en')} operations would be carried out`); return false; }
+    return true;
+  }
+
   abort(span: Span, detail: string): void {
     if (!this.aborted) this.ctx.report('LW901', span, { detail, word: this.word });
     this.aborted = true;

@@ -197,7 +197,7 @@ function skipIdlePasses(m: Machine, k: number, pass: IdlePass, span: Span): void
 export function execOps(m: Machine, ops: readonly Op[], yarn: number): void {
   for (let i = 0; i < ops.length; i++) {
     if (m.aborted) return;
-    if (++m.ops > LIMITS.operations) { m.abort(ops[i].span, `more than ${LIMITS.operations.toLocaleString('en')} operations would be carried out`); return; }
+    if (!m.operate(ops[i].span)) return;
     if (m.pos >= m.nextEvent) m.passEvents();
     execOp(m, ops[i], yarn);
   }

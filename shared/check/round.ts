@@ -82,10 +82,8 @@ export function workRounds(
   const records: RoundRecord[] = [];
   const { ctx, store } = m;
   const stats: WorkRoundsStats = { reusedRounds: 0, workedRounds: 0 };
-  // The studio's client build compiles tracing out (build-flags.d.ts).
-  const traced = TRACED;
-  const resume = traced ? options.resume : undefined;
-  const recording = traced && (options.record === true || resume !== undefined);
+  const resume = TRACED ? options.resume : undefined;
+  const recording = TRACED && (options.record === true || resume !== undefined);
   const reports: ReportCall[] = [];
   const events: MachineEvent[] = [];
   const checkpoints: Checkpoint[] = [];
@@ -103,7 +101,7 @@ export function workRounds(
   const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));
 
   // The rounds before the first changed one come from the trace (resume.ts).
-  const range = traced && resume ? resume.changed(plan) : { first: 0, last: -1 };
+  const range = TRACED && resume ? resume.changed(plan) : { first: 0, last: -1 };
   const start = range.first;
   // Room for every round at the cast-on width (plus a little for shaping and backing), to grow rarely.
   const expected = Math.min(castOn.count * (plan.length + 1) * 1.1 + 1024, LIMITS.stitchesPerSize * 1.05) | 0;
@@ -111,8 +109,8 @@ export function workRounds(
   let prevKey: string | null = null;
   let prevStable = false;
   let lastKey: string | null = null; // the key of the plan entry before the current one
-  // `traced &&` lets the client build drop the resuming code (a constant there).
-  if (traced && start > 0) {
+  // `TRACED &&` lets the client build drop the resuming code (a constant there).
+  if (TRACED && start > 0) {
     m.store.reserve(expected);
     ({ prevOff, prevLen, prevMarkers, prevStable } = resume!.restore(m, start, { records, checkpoints, repeats }));
     prevKey = keyOf(start - 1);
@@ -143,12 +141,12 @@ export function workRounds(
     const key = p === plan[pi - 1] ? lastKey : keyOf(pi);
     repeats[pi] = key !== null && key === lastKey;
     lastKey = key;
-    if (traced && resume && pi > range.last) {
+    if (TRACED && resume && pi > range.last) {
       // Back in the state the earlier compile had here? Then the rest is the same (resume.ts).
       const taken = resume.splice(m, pi, { prevOff, prevLen, prevMarkers, prevStable }, { records, checkpoints, repeats, events: events.length, reports: reports.length, planLength: plan.length });
       if (taken > 0) { stats.reusedRounds += taken; return done(); }
     }
-    if (traced && recording) checkpoints[pi] = checkpoint();
+    if (TRACED && recording) checkpoints[pi] = checkpoint();
     stats.workedRounds++;
     m.logical += prevLen;
     if (key !== null && key === prevKey && prevStable) {
