@@ -22,24 +22,31 @@
  *    with every offset and line moved by the distance it moved (columns
  *    cannot change: the first line starts at the same column, later lines
  *    start inside the piece), lazily (settle()).
- * 3. Round lines of unchanged statements (the CST-to-AST step's memo): a
- *    round line depends only on its statement and its place among the round
- *    lines. A moved one is copied with moved spans (LineMover), a renumbered
- *    one copied with its new index; `pairs` records old object -> copy.
+ * 3. Round and ladder lines of unchanged statements (the CST-to-AST step's
+ *    memo): a round line depends only on its statement and its place among
+ *    the round lines, a ladder line only on its statement. A moved one is
+ *    moved in place (LineShift: its spans shift), a renumbered round line
+ *    gets its new index in place: both keep their identity, so the previous
+ *    check's plans, records, reports and sources still name them.
  * 4. The check. When nothing but round lines changed (header, cast-on,
  *    charts and ladders reused), each size's rounds resume from the
  *    previous check's trace (shared/check/resume.ts): rounds before the
  *    first round whose plan changed are taken over, the changed ones are
  *    worked, and once the machine is back in the state the previous check
  *    had at a round, the rest is taken over too. Old objects map to new ones
- *    through `pairs` (copies), identity (unchanged) or not at all (objects
- *    of edited statements, `dead`: then the check starts over).
- *    When every piece is the previous one, unmoved, the whole previous
- *    check is reused (comment edits in place).
+ *    by identity (unchanged or moved lines), through `pairs` (the other
+ *    statements, built again) or not at all (objects of edited statements,
+ *    `dead`: then the check starts over). When every piece is the previous
+ *    one, unmoved, the whole previous check is reused (comment edits in
+ *    place).
  *
- * Results may share objects with earlier results; treat them as read-only
- * (as every compile result is). Memory: only the previous source's pieces
- * and result are kept.
+ * A result is valid until the next call. Results share objects with earlier
+ * results, and the next compile moves the spans of reused lines in place and
+ * takes over the previous check's round checkpoints, so an earlier result
+ * may no longer describe its own source (as an incremental parser edits its
+ * previous tree in place): serialize what must outlive the next call
+ * (toCheckJson). Treat results as read-only (as every compile result is).
+ * Memory: only the previous source's pieces and result are kept.
  */
 import type { CstElement, CstNode, IToken } from 'chevrotain';
 import type { Diagnostic, RoundSummary, Span } from './types';
@@ -47,7 +54,7 @@ import { compile, type CompileOptions, type CompileResult } from './index';
 import { lexSource, lexer, tokenSpan, parseErrorDiagnostics, MAX_SYNTAX_DIAGNOSTICS, type PatternAst } from './notation';
 import { getParser, startsStatement, type ParseError } from './notation/parser';
 import { buildAst, type RoundLineMemo } from './notation/to-ast';
-import type { Graded, NameRef, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
+import type { LadderLine, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { sortDiagnostics } from './diagnostics';
 import { checkPatternTraced, type CheckOutput, type CheckTrace, type NodeMap, type RoundRecord, type SourceTable } from './check';
 import { createResumer, ResumeMiss } from './check/resume';
@@ -66,7 +73,7 @@ export interface IncrementalStats {
 
 /** A compiler that remembers its previous source. */
 export interface IncrementalCompiler {
-  /** Same result as `compile(source, options)`; reuses what the previous call computed where safe. */
+  /** Same result as `compile(source, options)`, valid until the next call (see the module comment); reuses what the previous call computed where safe. */
   compile(source: string, options?: CompileOptions): CompileResult;
   /** What the last call reused (for benchmarks and tests). */
   readonly lastStats: IncrementalStats;
@@ -90,6 +97,15 @@ interface PieceResult {
   tokens: IToken[];
 }
 interface LineEntry { line: RoundLine; diagnostics: Diagnostic[] }
+interface LadderEntry { ladder: LadderLine | null; diagnostics: Diagnostic[] }
+
+/** A reused piece moved by (dOff, dLine): a new object (the previous source's list keeps the old one), written out field by field (a spread costs several times as much). */
+function placed(r: PieceResult, dOff: number, dLine: number, firstOnLine: boolean): PieceResult {
+  return {
+    cst: r.cst, errors: r.errors, offset: r.offset + dOff, line: r.line + dLine, cstOffset: r.cstOffset, cstLine: r.cstLine, kind: r.kind, reused: true,
+    key: r.key, end: r.end + dOff, firstOnLine, tokens: r.tokens,
+  };
+}
 
 const isToken = (e: CstElement): e is IToken => (e as IToken).image !== undefined;
 type Located = { startOffset: number; endOffset?: number; startLine?: number; endLine?: number };
@@ -108,55 +124,60 @@ function moveCst(n: CstNode, dOff: number, dLine: number, seen: Set<object>): vo
   }
 }
 
-/** Copies of round lines with their spans moved by (dOff, dLine); columns stay (see the module comment). */
-class LineMover {
-  constructor(private dOff: number, private dLine: number, private pairs: Map<object, object>) {}
+/**
+ * Moves a round line's spans in place by (dOff, dLine); columns stay (see the
+ * module comment). In place, so the line keeps its identity: the previous
+ * check's records, reports and source table name the same objects, and the
+ * resumer takes them over as they are. `seen` (when given) collects the
+ * spans moved, for diagnostics that share one.
+ */
+class LineShift {
+  constructor(private dOff: number, private dLine: number, private seen: Set<Span> | null) {}
 
-  span(s: Span): Span {
-    const n = { from: s.from + this.dOff, to: s.to + this.dOff, line: s.line + this.dLine, column: s.column, endLine: s.endLine + this.dLine, endColumn: s.endColumn };
-    this.pairs.set(s, n);
-    return n;
+  span(s: Span): void {
+    s.from += this.dOff; s.to += this.dOff; s.line += this.dLine; s.endLine += this.dLine;
+    if (this.seen) this.seen.add(s);
   }
-  graded(g: Graded): Graded { return { values: g.values, span: this.span(g.span) }; }
-  gradedOrNull(g: Graded | null): Graded | null { return g ? this.graded(g) : null; }
-  name(n: NameRef): NameRef { return { name: n.name, span: this.span(n.span) }; }
-  nameOrNull(n: NameRef | null): NameRef | null { return n ? this.name(n) : null; }
-  to(t: ToSpec): ToSpec {
-    if (t.kind === 'last') return { kind: 'last', n: this.graded(t.n) };
-    if (t.kind === 'marker') return { kind: 'marker', name: this.nameOrNull(t.name) };
-    return t; // { kind: 'end' }: nothing to move
+  to(t: ToSpec): void {
+    if (t.kind === 'last') this.span(t.n.span);
+    else if (t.kind === 'marker' && t.name) this.span(t.name.span);
   }
-  repeat(r: Repeat): Repeat {
-    if (r.kind === 'times') return { kind: 'times', n: this.graded(r.n) };
-    if (r.kind === 'once') return r;
-    return this.to(r);
+  repeat(r: Repeat): void {
+    if (r.kind === 'times') this.span(r.n.span);
+    else if (r.kind !== 'once') this.to(r);
   }
-  op(o: Op): Op {
-    let n: Op;
+  op(o: Op): void {
+    this.span(o.span);
     switch (o.type) {
-      case 'stitch': n = { type: 'stitch', stitch: o.stitch, count: this.gradedOrNull(o.count), to: o.to ? this.to(o.to) : null, yarn: this.nameOrNull(o.yarn), span: this.span(o.span) }; break;
-      case 'group': n = { type: 'group', ops: o.ops.map((x) => this.op(x)), repeat: this.repeat(o.repeat), yarn: this.nameOrNull(o.yarn), span: this.span(o.span) }; break;
-      case 'chart': n = { type: 'chart', chart: this.name(o.chart), row: this.gradedOrNull(o.row), once: o.once, span: this.span(o.span) }; break;
-      case 'mark': case 'unmark': n = { type: o.type, name: this.name(o.name), span: this.span(o.span) }; break;
-      case 'catch': case 'raise': n = { type: o.type, yarn: this.name(o.yarn), span: this.span(o.span) }; break;
-      case 'carry': n = { type: 'carry', count: this.gradedOrNull(o.count), span: this.span(o.span) }; break;
-      case 'close': n = { type: 'close', how: o.how, span: this.span(o.span) }; break;
-      case 'cable': n = { type: 'cable', held: o.held, worked: o.worked, dir: o.dir, yarn: this.nameOrNull(o.yarn), span: this.span(o.span) }; break;
+      case 'stitch': if (o.count) this.span(o.count.span); if (o.to) this.to(o.to); if (o.yarn) this.span(o.yarn.span); break;
+      case 'group': for (const x of o.ops) this.op(x); this.repeat(o.repeat); if (o.yarn) this.span(o.yarn.span); break;
+      case 'chart': this.span(o.chart.span); if (o.row) this.span(o.row.span); break;
+      case 'mark': case 'unmark': this.span(o.name.span); break;
+      case 'catch': case 'raise': this.span(o.yarn.span); break;
+      case 'carry': if (o.count) this.span(o.count.span); break;
+      case 'close': break;
+      case 'cable': if (o.yarn) this.span(o.yarn.span); break;
     }
-    this.pairs.set(o, n);
-    return n;
   }
-  line(l: RoundLine): RoundLine {
-    const n: RoundLine = {
-      index: l.index, word: l.word, first: this.graded(l.first), last: this.gradedOrNull(l.last), every: l.every,
-      segment: this.nameOrNull(l.segment), yarn: this.nameOrNull(l.yarn), ops: l.ops.map((o) => this.op(o)),
-      note: l.note, span: this.span(l.span), headSpan: this.span(l.headSpan),
-    };
-    this.pairs.set(l, n);
-    return n;
+  line(l: RoundLine): void {
+    this.span(l.first.span);
+    if (l.last) this.span(l.last.span);
+    if (l.segment) this.span(l.segment.span);
+    if (l.yarn) this.span(l.yarn.span);
+    for (const o of l.ops) this.op(o);
+    this.span(l.span); this.span(l.headSpan);
   }
+  ladder(l: LadderLine): void {
+    this.span(l.yarn.span);
+    if (l.every) this.span(l.every.span);
+    for (const c of l.columns) this.span(c.span);
+    this.span(l.first.span); this.span(l.last.span);
+    if (l.segment) this.span(l.segment.span);
+    this.span(l.span);
+  }
+  /** A diagnostic of the line, moved (a copy; a span it shares with the line has moved already). */
   diagnostic(d: Diagnostic): Diagnostic {
-    const mv = (s: Span): Span => ({ ...s, from: s.from + this.dOff, to: s.to + this.dOff, line: s.line + this.dLine, endLine: s.endLine + this.dLine });
+    const mv = (s: Span): Span => (this.seen?.has(s) ? s : { ...s, from: s.from + this.dOff, to: s.to + this.dOff, line: s.line + this.dLine, endLine: s.endLine + this.dLine });
     return { ...d, span: mv(d.span), ...(d.related ? { related: d.related.map((r) => ({ ...r, span: mv(r.span) })) } : {}) };
   }
 }
@@ -205,14 +226,14 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   let pieces = new Map<string, PieceResult>();
   // Round lines built from the previous source's statements, by CST.
   let lines = new Map<CstNode, LineEntry>();
+  // Ladder lines likewise.
+  let ladders = new Map<CstNode, LadderEntry>();
   let previous: Previous | null = null;
   const stats: IncrementalStats = { pieces: 0, reusedPieces: 0, reusedCheck: false, reusedRounds: 0, workedRounds: 0 };
   // CSTs handed out in the current compile (each at most once, since moving one changes it in place).
   let taken = new Set<object>();
   // Objects of the previous AST -> their copies in this compile's AST (moved or renumbered round lines, the other statements).
   let pairs = new Map<object, object>();
-  // Moved copies of round lines -> the previous AST's line (a renumbered copy pairs with the latter).
-  let lineOrigin = new Map<RoundLine, RoundLine>();
   // The previous source and how it was cut (for cutAround).
   let lastCut: (Cut & { source: string }) | null = null;
 
@@ -230,12 +251,11 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       stats.reusedPieces++;
       const dOff = first.startOffset - cached.offset, dLine = line - cached.line;
       if (dOff === 0 && dLine === 0) {
-        const same: PieceResult = cached.reused && cached.firstOnLine === firstOnLine ? cached : { ...cached, reused: true, firstOnLine };
+        const same: PieceResult = cached.reused && cached.firstOnLine === firstOnLine ? cached : placed(cached, 0, 0, firstOnLine);
         next.set(key, same);
         return same;
       }
-      const moved = movePiece(cached, dOff, dLine);
-      moved.firstOnLine = firstOnLine;
+      const moved = movePiece(cached, dOff, dLine, firstOnLine);
       next.set(key, moved);
       return moved;
     }
@@ -252,17 +272,21 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     return made;
   }
 
-  /** A reused piece at a new place: its round line moves now, its CST when read (settle()). */
-  function movePiece(cached: PieceResult, dOff: number, dLine: number): PieceResult {
-    // Its round line: a copy with moved spans (the old one may still be in use by the previous result).
+  /** A reused piece at a new place: its round line moves now (in place), its CST when read (settle()). */
+  function movePiece(cached: PieceResult, dOff: number, dLine: number, firstOnLine = cached.firstOnLine): PieceResult {
     const entry = cached.cst ? lines.get(cached.cst) : undefined;
     if (entry && cached.cst) {
-      const mover = new LineMover(dOff, dLine, pairs);
-      const copy = mover.line(entry.line);
-      lineOrigin.set(copy, entry.line);
-      lines.set(cached.cst, { line: copy, diagnostics: entry.diagnostics.map((d) => mover.diagnostic(d)) });
+      const shift = new LineShift(dOff, dLine, entry.diagnostics.length ? new Set() : null);
+      shift.line(entry.line);
+      if (entry.diagnostics.length) lines.set(cached.cst, { line: entry.line, diagnostics: entry.diagnostics.map((d) => shift.diagnostic(d)) });
     }
-    return { ...cached, offset: cached.offset + dOff, line: cached.line + dLine, end: cached.end + dOff, reused: true };
+    const ladder = cached.cst && !entry ? ladders.get(cached.cst) : undefined;
+    if (ladder && cached.cst) {
+      const shift = new LineShift(dOff, dLine, ladder.diagnostics.length ? new Set() : null);
+      if (ladder.ladder) shift.ladder(ladder.ladder);
+      if (ladder.diagnostics.length) ladders.set(cached.cst, { ladder: ladder.ladder, diagnostics: ladder.diagnostics.map((d) => shift.diagnostic(d)) });
+    }
+    return placed(cached, dOff, dLine, firstOnLine);
   }
 
   /**
@@ -360,7 +384,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     for (let i = 0; i < a; i++) taken.add(pieces[i].cst ?? pieces[i]);
     for (let i = b; i < pieces.length; i++) taken.add(pieces[i].cst ?? pieces[i]);
     const order: PieceResult[] = [];
-    const keep = (r: PieceResult): PieceResult => (r.reused ? r : { ...r, reused: true });
+    const keep = (r: PieceResult): PieceResult => (r.reused ? r : placed(r, 0, 0, r.firstOnLine));
     for (let i = 0; i < a; i++) { const r = keep(pieces[i]); order.push(r); next.set(r.key, r); stats.pieces++; stats.reusedPieces++; }
     // Cut the middle as the parser would; look-ahead may read the first tokens after it.
     const ahead = b < pieces.length ? tokens.concat(pieces[b].tokens.slice(0, 8)) : tokens;
@@ -402,8 +426,8 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     const csts: CstNode[] = [];
     const errors: ParseError[] = [];
     for (const r of order) {
-      // Round lines with a built line in the cache never read their CST; everything else does.
-      if (r.errors.length || r.kind !== 'roundLine' || !r.cst || !lines.has(r.cst)) settle(r);
+      // Round and ladder lines with a built line in the cache never read their CST; everything else does.
+      if (r.errors.length || !r.cst || !(r.kind === 'roundLine' ? lines.has(r.cst) : r.kind === 'ladderLine' && ladders.has(r.cst))) settle(r);
       if (r.errors.length) errors.push(...r.errors);
       if (r.cst) csts.push(r.cst);
     }
@@ -415,17 +439,21 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     if (sameAst) built = previous!.built;
     else {
       const nextLines = new Map<CstNode, LineEntry>();
+      const nextLadders = new Map<CstNode, LadderEntry>();
       const memo: RoundLineMemo = {
         get(cst) { const e = lines.get(cst); if (e) nextLines.set(cst, e); return e; },
         set(cst, line, diags) { nextLines.set(cst, { line, diagnostics: diags }); },
+        // Renumbered in place too: the line keeps its identity (its source index is mapped by prepare).
         reindex(line, index) {
-          const copy: RoundLine = { ...line, index };
-          pairs.set(lineOrigin.get(line) ?? line, copy);
-          return copy;
+          (line as { index: number }).index = index;
+          return line;
         },
+        getLadder(cst) { const e = ladders.get(cst); if (e) nextLadders.set(cst, e); return e; },
+        setLadder(cst, ladder, diags) { nextLadders.set(cst, { ladder, diagnostics: diags }); },
       };
       built = buildAst(csts, memo);
       lines = nextLines;
+      ladders = nextLadders;
     }
     const ast = { ...built.ast, comments: cut.comments };
     return { ast, diagnostics: [...diagnostics, ...built.diagnostics], order, built, sameAst };
@@ -485,13 +513,12 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false; stats.reusedRounds = 0; stats.workedRounds = 0;
       taken = new Set();
       pairs = new Map();
-      lineOrigin = new Map();
       let parsed: ReturnType<typeof parse>;
       try {
         parsed = parse(source);
       } catch {
         // Anything unexpected in the cache path: forget it and compile afresh.
-        pieces = new Map(); lines = new Map(); previous = null; lastCut = null;
+        pieces = new Map(); lines = new Map(); ladders = new Map(); previous = null; lastCut = null;
         return compile(source, options);
       }
       const hadSyntax = parsed.diagnostics.some((d) => d.code === 'LW101' || d.code === 'LW102');

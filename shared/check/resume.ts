@@ -144,11 +144,15 @@ export function copyStitches(into: StitchStore, from: StitchStore, start: number
   into.flags.set(from.flags.subarray(start, end), at);
   into.col.set(from.col.subarray(start, end), at);
   const src = into.src, old = from.src;
+  // Gone sources map to -1: or-ing every index keeps the sign bit of any (one test after the loop).
+  // Old indexes are below srcMap's length (it is as long as the old table).
+  let any = 0;
   for (let i = 0; i < n; i++) {
     const s = srcMap[old[start + i]];
-    if (s === undefined || s < 0) throw new ResumeMiss('a stitch names a source that is gone');
+    any |= s;
     src[at + i] = s;
   }
+  if (any < 0) throw new ResumeMiss('a stitch names a source that is gone');
   into.length = at + n;
 }
 
@@ -303,31 +307,35 @@ export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
     splice(m, pi, now, into) {
       if (!sameState(m, { ...now, repeats: into.repeats }, pi, from)) return 0;
       const cp = t.checkpoints[pi];
+      const cpStoreLen = cp.storeLen, cpPrevOff = cp.prevOff;
       // The rounds taken over carry out what they did before; with this compile's count
       // before them they must still end within the bound, or working them would stop on the way.
       const last = t.checkpoints[t.checkpoints.length - 1];
+      const lastLogical = last.logical, lastSteps = last.steps, lastOps = last.ops;
       const dOps = m.ops - cp.ops;
-      if (last.ops + dOps > LIMITS.operations) return 0;
-      const d = m.store.length - cp.storeLen, dEvents = into.events - cp.events, dReports = into.reports - cp.reports;
+      if (lastOps + dOps > LIMITS.operations) return 0;
+      const d = m.store.length - cpStoreLen, dEvents = into.events - cp.events, dReports = into.reports - cp.reports;
       const offset = (o: number): number => {
-        if (o >= cp.storeLen) return o + d;
-        if (o === cp.prevOff) return now.prevOff;
+        if (o >= cpStoreLen) return o + d;
+        if (o === cpPrevOff) return now.prevOff;
         if (o < prefixLen) return o;
         throw new ResumeMiss('a round shares stitches that were worked again');
       };
-      copyStitches(m.store, t.store, cp.storeLen, t.store.length, map.srcMap);
+      copyStitches(m.store, t.store, cpStoreLen, t.store.length, map.srcMap);
       copyColumns(m, t.columns, cp.columns, t.columns.length, map);
       replayEvents(m, t.events, cp.events, t.events.length, map);
       replayReports(m, t.reports, cp.reports, t.reports.length, map);
       for (let i = pi; i < t.records.length; i++) into.records.push(mapRecord(t.records[i], map, offset));
+      // The trace's checkpoints from here on, moved into this compile's terms in place:
+      // the trace they belong to is left behind once this compile is done.
       for (let i = pi; i < t.checkpoints.length; i++) {
         const c = t.checkpoints[i];
-        const po = offset(c.prevOff);
-        into.checkpoints[i] = d === 0 && dEvents === 0 && dReports === 0 && dOps === 0 && po === c.prevOff ? c
-          : { ...c, storeLen: c.storeLen + d, events: c.events + dEvents, reports: c.reports + dReports, ops: c.ops + dOps, prevOff: po };
+        c.prevOff = offset(c.prevOff);
+        c.storeLen += d; c.events += dEvents; c.reports += dReports; c.ops += dOps;
+        into.checkpoints[i] = c;
         if (i > pi && i < into.planLength) into.repeats[i] = t.repeats[i];
       }
-      m.logical = last.logical; m.steps = last.steps; m.ops = last.ops + dOps;
+      m.logical = lastLogical; m.steps = lastSteps; m.ops = lastOps + dOps;
       return t.records.length - pi;
     },
   };

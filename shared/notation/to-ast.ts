@@ -78,8 +78,11 @@ const unquote = (t: IToken) => t.image.slice(1, -1);
 export interface RoundLineMemo {
   get(cst: CstNode): { line: RoundLine; diagnostics: Diagnostic[] } | undefined;
   set(cst: CstNode, line: RoundLine, diagnostics: Diagnostic[]): void;
-  /** The cached line at another index (a copy). */
+  /** The cached line at another index. */
   reindex(line: RoundLine, index: number): RoundLine;
+  /** Ladder lines likewise (a ladder line depends only on its own statement; null: incomplete, not in the AST). */
+  getLadder(cst: CstNode): { ladder: LadderLine | null; diagnostics: Diagnostic[] } | undefined;
+  setLadder(cst: CstNode, ladder: LadderLine | null, diagnostics: Diagnostic[]): void;
 }
 
 /** Builds the AST from parsed statements; returns it with the diagnostics found on the way. */
@@ -257,6 +260,14 @@ export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): 
         continue;
       }
     }
+    if (memo && st.children.ladderLine) {
+      const hit = memo.getLadder(st);
+      if (hit) {
+        if (hit.ladder) ast.ladders.push(hit.ladder);
+        diagnostics.push(...hit.diagnostics);
+        continue;
+      }
+    }
     const [kind, inner] = Object.entries(st.children)[0] ?? [];
     const n = (inner as Element[] | undefined)?.[0];
     if (!kind || !n || isToken(n)) continue;
@@ -353,8 +364,10 @@ export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): 
         break;
       }
       case 'ladderLine': {
+        const before = diagnostics.length;
         const l = ladderLine(n, span);
         if (l) ast.ladders.push(l);
+        memo?.setLadder(st, l, diagnostics.slice(before));
         break;
       }
     }

@@ -13,6 +13,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compile } from '../../shared/index.ts';
 import { createIncrementalCompiler } from '../../shared/incremental.ts';
+import { parseSource } from '../../shared/notation/index.ts';
 import { editPatternSource } from '../bench/edit-pattern.ts';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
@@ -163,5 +164,43 @@ describe('incremental compiler', () => {
     const result = inc.compile(edited);
     expect(inc.lastStats.reusedPieces).toBe(inc.lastStats.pieces);
     expect(json(result)).toBe(json(compile(edited)));
+  });
+
+  it('builds round and ladder lines that share no span object (a moved line shifts each of its spans in place, once)', () => {
+    const spansOf = (v: unknown, into: object[]): void => {
+      if (v === null || typeof v !== 'object') return;
+      if ('from' in v && 'to' in v && 'line' in v && 'column' in v) { into.push(v); return; }
+      for (const [k, x] of Object.entries(v)) if (k !== 'stitch') spansOf(x, into);
+    };
+    let lines = 0;
+    for (const source of [...demos, editPatternSource()]) {
+      const { ast } = parseSource(source);
+      for (const line of [...ast.rounds, ...ast.ladders]) {
+        const spans: object[] = [];
+        spansOf(line, spans);
+        expect(new Set(spans).size).toBe(spans.length);
+        lines++;
+      }
+    }
+    expect(lines).toBeGreaterThan(300);
+  });
+
+  it('keeps a moved round line and the ladder lines the same objects, their spans where a fresh compile puts them', () => {
+    const inc = createIncrementalCompiler();
+    const source = editPatternSource();
+    const first = inc.compile(source);
+    // The last round's line comes after the edited one; the ladders come before the front's rounds.
+    const line = first.sizes[0].stitches.rounds[299].span;
+    const from = line.from;
+    const ladder = first.sizes[0].stitches.sources.find((s) => source.slice(s.from, s.to).startsWith('ladder'))!;
+    const edited = source.replace('round 150 at front in A: (k 2, catch B) to end', 'round 150 at front in A: (k 1, p 1, catch B) to end');
+    const fresh = compile(edited);
+    const again = inc.compile(edited);
+    // The same span object, moved by the five characters the edit added.
+    expect(again.sizes[0].stitches.rounds[299].span).toBe(line);
+    expect(line.from).toBe(from + 5);
+    expect(line).toEqual(fresh.sizes[0].stitches.rounds[299].span);
+    expect(again.sizes[0].stitches.sources).toContain(ladder);
+    expect(json(again)).toBe(json(fresh));
   });
 });
