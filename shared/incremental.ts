@@ -69,6 +69,8 @@ export interface IncrementalStats {
   /** Rounds (over all sizes checked) taken from the previous check, and rounds worked. */
   reusedRounds: number;
   workedRounds: number;
+  /** Sizes whose round plan was carried over from the previous check (not planned again). */
+  carriedPlans: number;
 }
 
 /** A compiler that remembers its previous source. */
@@ -200,6 +202,36 @@ function pairWalk(a: unknown, b: unknown, pairs: Map<object, object>): boolean {
   return true;
 }
 
+const sameValues = (a: readonly number[], b: readonly number[]): boolean => a.length === b.length && a.every((v, i) => v === b[i]);
+/** Whether two round lines give the same rounds (planning reads only these). */
+const planAlike = (a: RoundLine, b: RoundLine): boolean =>
+  a.word === b.word && a.every === b.every && sameValues(a.first.values, b.first.values)
+  && (a.last === null ? b.last === null : b.last !== null && sameValues(a.last.values, b.last.values))
+  && (a.segment?.name ?? null) === (b.segment?.name ?? null);
+
+/**
+ * The round lines of the previous AST replaced by lines that plan alike at
+ * the same place (resume.ts ResumeFrom.replaced), or null. Reused lines keep
+ * their identity (moved in place), so any other difference is a change.
+ */
+function replacedLines(p: PatternAst, ast: PatternAst, kept: ReadonlySet<object>): Map<RoundLine, RoundLine> | null {
+  if (p.rounds.length !== ast.rounds.length || p.ladders.length !== ast.ladders.length) return null;
+  for (let i = 0; i < p.ladders.length; i++) if (p.ladders[i] !== ast.ladders[i]) return null;
+  const replaced = new Map<RoundLine, RoundLine>();
+  let before: Set<object> | null = null;
+  for (let i = 0; i < p.rounds.length; i++) {
+    const o = p.rounds[i], n = ast.rounds[i];
+    if (o === n) continue;
+    // The first line also names rounds no line gives (their span): planning again handles that.
+    if (i === 0 || !planAlike(o, n)) return null;
+    // An edited line for a new one, not lines that swapped places.
+    before ??= new Set(p.rounds);
+    if (kept.has(o) || before.has(n)) return null;
+    replaced.set(o, n);
+  }
+  return replaced;
+}
+
 /** Adds every object reachable from v (except stitch definitions) to `into`. */
 function collect(v: unknown, into: Set<object>): void {
   if (v === null || typeof v !== 'object' || into.has(v)) return;
@@ -229,7 +261,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   // Ladder lines likewise.
   let ladders = new Map<CstNode, LadderEntry>();
   let previous: Previous | null = null;
-  const stats: IncrementalStats = { pieces: 0, reusedPieces: 0, reusedCheck: false, reusedRounds: 0, workedRounds: 0 };
+  const stats: IncrementalStats = { pieces: 0, reusedPieces: 0, reusedCheck: false, reusedRounds: 0, workedRounds: 0, carriedPlans: 0 };
   // CSTs handed out in the current compile (each at most once, since moving one changes it in place).
   let taken = new Set<object>();
   // Objects of the previous AST -> their copies in this compile's AST (moved or renumbered round lines, the other statements).
@@ -489,10 +521,11 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     }
     const map: NodeMap = { node, srcMap };
     const firstLineSame = p.rounds.length === 0 ? ast.rounds.length === 0 : node(p.rounds[0]) === (ast.rounds[0] ?? null);
+    const replaced = replacedLines(p, ast, kept);
     return {
       resumerFor: (size: string) => {
         const trace = prev.trace.sizes.get(size);
-        return trace ? createResumer({ trace, map, firstLineSame }) : undefined;
+        return trace ? createResumer({ trace, map, firstLineSame, replaced }) : undefined;
       },
     };
   }
@@ -510,7 +543,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   return {
     get lastStats() { return { ...stats }; },
     compile(source: string, options: CompileOptions = {}): CompileResult {
-      stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false; stats.reusedRounds = 0; stats.workedRounds = 0;
+      stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false; stats.reusedRounds = 0; stats.workedRounds = 0; stats.carriedPlans = 0;
       taken = new Set();
       pairs = new Map();
       let parsed: ReturnType<typeof parse>;
@@ -541,6 +574,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
         checked = out;
         trace = out.trace;
         stats.reusedRounds = out.reusedRounds;
+        stats.carriedPlans = out.carriedPlans;
         stats.workedRounds = out.workedRounds;
       }
       previous = { order: parsed.order, built: parsed.built, ast: parsed.ast, size: options.size, hadSyntax, checked, trace };

@@ -84,7 +84,11 @@ export interface CheckIncremental {
 }
 
 /** CheckOutput plus what the incremental compiler needs. */
-export interface TracedCheckOutput extends CheckOutput { trace: CheckTrace; reusedRounds: number; workedRounds: number }
+export interface TracedCheckOutput extends CheckOutput {
+  trace: CheckTrace; reusedRounds: number; workedRounds: number;
+  /** Sizes whose round plan was carried over from the earlier compile. */
+  carriedPlans: number;
+}
 
 /**
  * Checks a parsed pattern; `only` restricts the work to one size (LW208 when
@@ -118,13 +122,13 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   const prepared = incremental?.prepare(sources) ?? null;
   const traces = new Map<string, SizeTrace>();
   const yarnsKey = incremental ? head.yarns.join('\u0000') : '';
-  let reusedRounds = 0, workedRounds = 0;
+  let reusedRounds = 0, workedRounds = 0, carriedPlans = 0;
   if (!ast.castOn) rep.report('LW207', origin, {});
   if (head.yarns.length > 1 && !head.gauge) rep.report('LW503', ast.header.yarns[0]?.span ?? origin, {});
   if (only !== undefined && !head.sizes.includes(only)) {
     rep.report('LW208', ast.header.sizesSpan ?? origin, { name: only, known: head.sizes.join(' ') });
     const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes: [] };
-    return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds } : out;
+    return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds, carriedPlans } : out;
   }
   const sizes: SizeModel[] = [];
   head.sizes.forEach((size, sizeIndex) => {
@@ -133,13 +137,21 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
     const m = new Machine(ctx, sources, charts);
     const castOnCount = ast.castOn ? ctx.graded(ast.castOn.count) : 0;
     const castOnYarn = ctx.yarn(ast.castOn?.yarn ?? null, 0);
-    const planned = planRounds(ctx, ast, flat, hadSyntaxErrors);
+    // The incremental compiler may carry the earlier compile's plan over (resume.ts); planning
+    // reports nothing then, and how many reports planning made is kept for the next compile.
+    const resume = TRACED ? prepared?.resumerFor(size) : undefined;
+    const callsBefore = rep.calls;
+    const carried = TRACED && resume ? resume.plan() : null;
+    if (carried) carriedPlans++;
+    const planned = carried ?? planRounds(ctx, ast, flat, hadSyntaxErrors);
+    const planReports = rep.calls - callsBefore;
     let records: RoundRecord[] = [];
     if (castOnCount < 0) ctx.report('LW103', ast.castOn!.count.span, { what: 'a cast-on', need: '0 or more stitches', value: castOnCount });
     if (planned) {
       const worked = workRounds(m, ast, planned.rounds, planned.ranges, { count: Math.max(0, castOnCount), yarn: castOnYarn, src: 0 }, flat, {
         record: incremental !== null,
-        resume: prepared?.resumerFor(size),
+        resume,
+        planReports,
       });
       records = worked.records;
       if (worked.trace) traces.set(size, worked.trace);
@@ -157,7 +169,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
     });
   });
   const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };
-  return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds } : out;
+  return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds, carriedPlans } : out;
 }
 
 function summarize(r: RoundRecord, yarns: string[]): RoundSummary {

@@ -27,7 +27,7 @@ import type { RoundLine } from '../notation';
 import type { Span } from '../types';
 import { LIMITS, type ReportCall } from './context';
 import type { ColumnInfo, Machine, MachineEvent, MarkerPos } from './machine';
-import type { PlannedRound } from './plan';
+import type { LineRange, PlannedRound } from './plan';
 import type { RoundRecord } from './round';
 import type { StitchStore } from './store';
 
@@ -52,6 +52,10 @@ export interface Checkpoint {
 /** What one size's rounds did, kept for a later compile. */
 export interface SizeTrace {
   plan: PlannedRound[];
+  /** The round lines' ranges for this size, as planned. */
+  ranges: Map<RoundLine, LineRange>;
+  /** Report calls made while planning (-1: not counted). */
+  planReports: number;
   /** repeats[i]: plan[i] has the reuse.ts key of plan[i - 1] (it may share that round's stitches). */
   repeats: boolean[];
   /** checkpoints[i]: before plan[i]; the last one is after the last round worked. */
@@ -82,6 +86,13 @@ export interface ResumeFrom {
   map: NodeMap;
   /** True when rounds with no line of their own would be the same (they take their span from the first round line). */
   firstLineSame: boolean;
+  /**
+   * Round lines of the earlier AST replaced by new ones that plan alike (same
+   * word, range, step and segment, at the same place, not the first line),
+   * every other round and ladder line being the same object; null when the
+   * lines changed otherwise (then planning is done again).
+   */
+  replaced: ReadonlyMap<RoundLine, RoundLine> | null;
 }
 
 /** Whether the planned rounds at one place of both compiles' plans are the same (same lines, same ladders in the same phase). */
@@ -267,6 +278,13 @@ export interface FoldState { prevOff: number; prevLen: number; prevMarkers: Mark
 
 /** What workRounds asks of a trace (created by createResumer; workRounds itself does not import this module's code). */
 export interface RoundsResumer {
+  /**
+   * The trace's plan with the replaced lines' rounds given to their new
+   * lines, or null when planning must be done again (lines changed
+   * otherwise, or planning reported anything: a plan carried over reports
+   * nothing). Takes the trace's ranges over.
+   */
+  plan(): { rounds: PlannedRound[]; ranges: Map<RoundLine, LineRange> } | null;
   /** The plan indexes that differ from the trace's plan; `first` is 0 when nothing can be taken before them. */
   changed(plan: PlannedRound[]): { first: number; last: number };
   /** Takes rounds [0, start) from the trace into the machine and the sink; returns the fold's state before `start`. */
@@ -284,9 +302,42 @@ export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
   if (t.aborted || t.checkpoints.length === 0) return undefined;
   // Store offsets below this hold stitches identical in both compiles (the cast-on, or the restored rounds).
   let prefixLen = t.checkpoints[0].storeLen;
+  // A plan carried over, and the plan indexes where it differs from the trace's.
+  let carried: { plan: PlannedRound[]; first: number; last: number } | null = null;
   return {
+    plan() {
+      const replaced = from.replaced;
+      if (!replaced || t.planReports !== 0) return null;
+      const ranges = t.ranges;
+      for (const o of replaced.keys()) if (!ranges.has(o)) return null;
+      const plan = t.plan.slice();
+      // Entries are shared (plan.ts): one new entry per old entry keeps the sharing.
+      const made = new Map<PlannedRound, PlannedRound>();
+      let first = plan.length, last = -1;
+      for (const [o, n] of replaced) {
+        const r = ranges.get(o)!;
+        const name = o.segment?.name;
+        for (let k = r.first; k <= r.last && k <= plan.length; k += r.step) {
+          const e = plan[k - 1];
+          // The rounds the old line gave (a later line may give some of its range).
+          if (name === undefined ? e.whole !== o : e.segments.get(name) !== o) continue;
+          let ne = made.get(e);
+          if (!ne) {
+            ne = name === undefined ? { whole: n, segments: e.segments, ladders: e.ladders } : { whole: e.whole, segments: new Map(e.segments).set(name, n), ladders: e.ladders };
+            made.set(e, ne);
+          }
+          plan[k - 1] = ne;
+          if (k - 1 < first) first = k - 1;
+          if (k - 1 > last) last = k - 1;
+        }
+        ranges.delete(o);
+        ranges.set(n, r);
+      }
+      carried = { plan, first, last };
+      return { rounds: plan, ranges };
+    },
     changed(plan) {
-      const c = changedRounds(t.plan, plan, map, from.firstLineSame);
+      const c = carried && carried.plan === plan ? carried : changedRounds(t.plan, plan, map, from.firstLineSame);
       return { first: c.first > 0 && c.first < t.checkpoints.length ? c.first : 0, last: c.last };
     },
     restore(m, start, into) {

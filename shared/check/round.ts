@@ -66,6 +66,8 @@ export interface WorkRoundsOptions {
   record?: boolean;
   /** Takes what it can from an earlier compile's trace (resume.ts createResumer). */
   resume?: RoundsResumer;
+  /** Report calls made while planning these rounds (kept in the trace: a plan is carried over only when it made none). */
+  planReports?: number;
 }
 
 /** What workRounds did, for the incremental compiler. */
@@ -95,7 +97,7 @@ export function workRounds(
     if (recording) { ctx.reporter.trace = previousReportTrace; m.trace = null; }
     // The end-of-size checks read the word; rounds taken from a trace did not set it.
     if (records.length) m.word = flat ? 'row' : 'round';
-    const trace = recording ? { plan, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted } : null;
+    const trace = recording ? { plan, ranges, planReports: options.planReports ?? -1, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted } : null;
     return { records, trace, stats };
   };
   const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));

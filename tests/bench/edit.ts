@@ -26,6 +26,8 @@ export interface EditFigure {
   /** Rounds (over all sizes) taken over from the previous check, and rounds worked again. */
   reusedRounds: number;
   workedRounds: number;
+  /** Sizes whose round plan was carried over rather than planned again. */
+  carriedPlans: number;
 }
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
@@ -53,5 +55,5 @@ export function measureEdit(kind: EditKind, runs = 21, warm = 5): EditFigure {
     if (i >= warm) { full.push(f); edit.push(e); }
   }
   const fullMs = median(full), editMs = median(edit);
-  return { kind, fullMs, editMs, ratio: editMs / fullMs, reparsed: stats.pieces - stats.reusedPieces, statements: stats.pieces, reusedCheck: stats.reusedCheck, reusedRounds: stats.reusedRounds, workedRounds: stats.workedRounds };
+  return { kind, fullMs, editMs, ratio: editMs / fullMs, reparsed: stats.pieces - stats.reusedPieces, statements: stats.pieces, reusedCheck: stats.reusedCheck, reusedRounds: stats.reusedRounds, workedRounds: stats.workedRounds, carriedPlans: stats.carriedPlans };
 }

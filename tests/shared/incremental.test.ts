@@ -138,7 +138,7 @@ describe('incremental compiler', () => {
       else lines[i] = n;
       return lines.join('\n');
     };
-    let resumed = 0;
+    let resumed = 0, carried = 0;
     fc.assert(
       fc.property(fc.nat({ max: bases.length - 1 }), fc.array(roundEdit, { minLength: 1, maxLength: 3 }), fc.option(fc.constantFrom('S', 'M', 'L'), { nil: undefined }), (d, edits, size) => {
         const inc = createIncrementalCompiler();
@@ -148,12 +148,15 @@ describe('incremental compiler', () => {
           source = edited(source, e);
           expect(json(inc.compile(source, { size }))).toBe(json(compile(source, { size })));
           if (inc.lastStats.reusedRounds > 0) resumed++;
+          if (inc.lastStats.carriedPlans > 0) carried++;
         }
       }),
       { numRuns: Number(process.env.LW_INCREMENTAL_RUNS ?? 120) },
     );
-    // The property is only worth something if the resuming path ran.
+    // The property is only worth something if the resuming path ran, with plans carried over and planned again.
     expect(resumed).toBeGreaterThan(20);
+    expect(carried).toBeGreaterThan(10);
+    expect(carried).toBeLessThan(resumed);
   }, 600_000);
 
   it('moves reused statements after an edit that adds lines above them (spans and line numbers as a fresh compile)', () => {
