@@ -67,6 +67,13 @@ export interface SizeTrace {
   /** Report calls made by the rounds (not by planning or the end-of-size checks). */
   reports: ReportCall[];
   aborted: boolean;
+  /**
+   * A store no result in use reads any more (the one of the compile before
+   * the trace's: incremental results are valid until the next call): a
+   * compile that resumes from this trace works into its arrays instead of
+   * allocating new ones, and leaves this trace's store as the next spare.
+   */
+  spare: StitchStore | null;
 }
 
 /** Thrown when a trace cannot be used; the incremental compiler then compiles afresh. */
@@ -142,6 +149,16 @@ export function changedRounds(old: PlannedRound[], plan: PlannedRound[], map: No
     if (!same) { if (first === n) first = i; last = i; }
   }
   return { first, last };
+}
+
+/** Makes `into` (empty) use the whole arrays of `spare` (trimmed to views when its model was finished), its stitches forgotten. */
+function adopt(into: StitchStore, spare: StitchStore): void {
+  into.op = new Uint8Array(spare.op.buffer);
+  into.yarn = new Uint8Array(spare.yarn.buffer);
+  into.flags = new Uint8Array(spare.flags.buffer);
+  into.src = new Uint32Array(spare.src.buffer);
+  into.col = new Int32Array(spare.col.buffer);
+  into.length = 0;
 }
 
 /** Copies old store [from, to) to the end of `into`, source indexes mapped. */
@@ -287,8 +304,14 @@ export interface RoundsResumer {
   plan(): { rounds: PlannedRound[]; ranges: Map<RoundLine, LineRange> } | null;
   /** The plan indexes that differ from the trace's plan; `first` is 0 when nothing can be taken before them. */
   changed(plan: PlannedRound[]): { first: number; last: number };
-  /** Takes rounds [0, start) from the trace into the machine and the sink; returns the fold's state before `start`. */
+  /**
+   * Takes rounds [0, start) from the trace into the machine and the sink
+   * (into the trace's spare arrays, when it has some); returns the fold's
+   * state before `start`.
+   */
   restore(m: Machine, start: number, into: RoundsSink): FoldState;
+  /** The store the next compile may work into: the trace's own, which no result reads once this compile is done. */
+  spare(): StitchStore;
   /**
    * When the machine before plan index `pi` is in the state the trace had
    * there, takes the rest of the trace's rounds and returns how many; else 0.
@@ -342,6 +365,7 @@ export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
     },
     restore(m, start, into) {
       const cp = t.checkpoints[start];
+      if (t.spare && t.spare !== t.store) adopt(m.store, t.spare);
       copyStitches(m.store, t.store, 0, cp.storeLen, map.srcMap);
       copyColumns(m, t.columns, 0, cp.columns, map);
       replayEvents(m, t.events, 0, cp.events, map);
@@ -354,6 +378,9 @@ export function createResumer(from: ResumeFrom): RoundsResumer | undefined {
       m.logical = cp.logical; m.steps = cp.steps; m.ops = cp.ops;
       prefixLen = cp.storeLen;
       return { prevOff: cp.prevOff, prevLen: cp.prevLen, prevMarkers: cp.prevMarkers, prevStable: cp.prevStable };
+    },
+    spare() {
+      return t.store;
     },
     splice(m, pi, now, into) {
       if (!sameState(m, { ...now, repeats: into.repeats }, pi, from)) return 0;

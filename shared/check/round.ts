@@ -97,7 +97,10 @@ export function workRounds(
     if (recording) { ctx.reporter.trace = previousReportTrace; m.trace = null; }
     // The end-of-size checks read the word; rounds taken from a trace did not set it.
     if (records.length) m.word = flat ? 'row' : 'round';
-    const trace = recording ? { plan, ranges, planReports: options.planReports ?? -1, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted } : null;
+    const trace = recording ? {
+      plan, ranges, planReports: options.planReports ?? -1, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted,
+      spare: resume ? resume.spare() : null,
+    } : null;
     return { records, trace, stats };
   };
   const keyOf = (i: number): string | null => (flat ? null : roundKey(plan[i], m.charts));
@@ -113,8 +116,8 @@ export function workRounds(
   let lastKey: string | null = null; // the key of the plan entry before the current one
   // `TRACED &&` lets the client build drop the resuming code (a constant there).
   if (TRACED && start > 0) {
-    m.store.reserve(expected);
     ({ prevOff, prevLen, prevMarkers, prevStable } = resume!.restore(m, start, { records, checkpoints, repeats }));
+    m.store.reserve(Math.max(0, expected - m.store.length));
     prevKey = keyOf(start - 1);
     lastKey = prevKey;
     stats.reusedRounds += start;
