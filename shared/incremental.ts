@@ -496,7 +496,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
    * previous check cannot be resumed: any statement other than a round line
    * changed (header, cast-on, charts and ladders shape every round).
    */
-  function prepare(prev: Previous, order: PieceResult[], ast: PatternAst, sources: SourceTable): ReturnType<Parameters<typeof checkPatternTraced>[3]['prepare']> {
+  function prepare(prev: Previous, order: PieceResult[], ast: PatternAst, sources: SourceTable, carried: Int32Array | null, replaced: Map<RoundLine, RoundLine> | null): ReturnType<Parameters<typeof checkPatternTraced>[3]['prepare']> {
     const others = (o: PieceResult[]) => o.filter((r) => r.kind !== 'roundLine');
     const now = others(order), then = others(prev.order);
     if (now.length !== then.length || now.some((r, i) => !r.reused || r.kind !== then[i].kind)) return null;
@@ -512,8 +512,9 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       return dead.has(old) ? null : old;
     };
     const oldSources = prev.trace.sources;
-    const srcMap = new Int32Array(oldSources.spans.length);
-    for (let i = 0; i < srcMap.length; i++) {
+    // The table carried over says where each old number went; else ask the new table.
+    const srcMap = carried ?? new Int32Array(oldSources.spans.length);
+    for (let i = 0; !carried && i < srcMap.length; i++) {
       const n = oldSources.nodes[i];
       if (n === null) { srcMap[i] = sources.nodes[i] === null && i < sources.nodes.length ? i : -1; continue; }
       const m = node(n);
@@ -521,7 +522,6 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     }
     const map: NodeMap = { node, srcMap };
     const firstLineSame = p.rounds.length === 0 ? ast.rounds.length === 0 : node(p.rounds[0]) === (ast.rounds[0] ?? null);
-    const replaced = replacedLines(p, ast, kept);
     return {
       resumerFor: (size: string) => {
         const trace = prev.trace.sizes.get(size);
@@ -564,9 +564,15 @@ export function createIncrementalCompiler(): IncrementalCompiler {
         stats.reusedCheck = true;
       } else {
         const canResume = prev !== null && prev.size === options.size && prev.hadSyntax === hadSyntax;
+        // Round lines of the previous AST replaced by ones that plan alike (the rest kept their identity).
+        const replaced = canResume ? replacedLines(prev.ast, parsed.ast, new Set(parsed.ast.rounds)) : null;
         let out;
         try {
-          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: (sources) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources) : null), summary });
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, {
+            number: (sources) => (canResume && replaced ? sources.carryOver(prev.trace.sources, replaced) : null),
+            prepare: (sources, carried) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, replaced) : null),
+            summary,
+          });
         } catch (e) {
           if (!(e instanceof ResumeMiss)) throw e;
           out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summary });

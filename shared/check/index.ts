@@ -78,7 +78,13 @@ export interface CheckIncremental {
    * compile's objects map to this one's and its traces, or null to work
    * every round.
    */
-  prepare(sources: SourceTable): { resumerFor(size: string): RoundsResumer | undefined } | null;
+  prepare(sources: SourceTable, srcMap: Int32Array | null): { resumerFor(size: string): RoundsResumer | undefined } | null;
+  /**
+   * Numbers the round lines and operations by taking over the earlier
+   * compile's table (SourceTable.carryOver); returns new index by old index,
+   * or null to number them afresh (preassign).
+   */
+  number?(sources: SourceTable): Int32Array | null;
   /** A round's summary: a record carried over keeps its summary (`yarns`: the yarn names, joined). */
   summary(r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary;
 }
@@ -118,8 +124,9 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   const sources = new SourceTable();
   sources.add(ast.castOn?.span ?? origin); // index 0: the cast-on (also used for stitches left unworked)
   const charts = prepareCharts(ast.charts, head, rep, sources);
-  sources.preassign(ast);
-  const prepared = incremental?.prepare(sources) ?? null;
+  const carried = incremental?.number?.(sources) ?? null;
+  if (!carried) sources.preassign(ast);
+  const prepared = incremental?.prepare(sources, carried) ?? null;
   const traces = new Map<string, SizeTrace>();
   const yarnsKey = incremental ? head.yarns.join('\u0000') : '';
   let reusedRounds = 0, workedRounds = 0, carriedPlans = 0;
