@@ -56,7 +56,7 @@ import { getParser, startsStatement, type ParseError } from './notation/parser';
 import { buildAst, type RoundLineMemo } from './notation/to-ast';
 import type { LadderLine, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { sortDiagnostics } from './diagnostics';
-import { checkPatternTraced, type CheckOutput, type CheckTrace, type NodeMap, type RoundRecord, type SourceTable } from './check';
+import { checkPatternTraced, type CheckOutput, type CheckTrace, type FloatFacts, type FloatFactsMemo, type NodeMap, type RoundRecord, type SourceTable } from './check';
 import { createResumer, ResumeMiss } from './check/resume';
 
 /** What one incremental compile reused. */
@@ -530,6 +530,9 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     };
   }
 
+  // Facts of the long-float reports by size and end span (reportFloats), and the diagnostics made for them (Reporter.made).
+  let floatFacts = new Map<string, Map<Span, FloatFacts[]>>();
+  const made = new WeakMap<object, Diagnostic>();
   // Summaries of round records carried over from earlier checks (records are shared, so are their summaries).
   const summaries = new WeakMap<RoundRecord, { yarns: string; summary: RoundSummary }>();
   const summary = (r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary => {
@@ -567,16 +570,24 @@ export function createIncrementalCompiler(): IncrementalCompiler {
         // Round lines of the previous AST replaced by ones that plan alike (the rest kept their identity).
         const replaced = canResume ? replacedLines(prev.ast, parsed.ast, new Set(parsed.ast.rounds)) : null;
         let out;
+        const nextFacts = new Map<string, Map<Span, FloatFacts[]>>();
+        const facts = (size: string): FloatFactsMemo => {
+          let after = nextFacts.get(size);
+          if (!after) nextFacts.set(size, (after = new Map()));
+          return { before: floatFacts.get(size), after };
+        };
         try {
           out = checkPatternTraced(parsed.ast, options.size, hadSyntax, {
             number: (sources) => (canResume && replaced ? sources.carryOver(prev.trace.sources, replaced) : null),
             prepare: (sources, carried) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, replaced) : null),
-            summary,
+            summary, floatFacts: facts, made,
           });
         } catch (e) {
           if (!(e instanceof ResumeMiss)) throw e;
-          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summary });
+          nextFacts.clear();
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summary, floatFacts: facts, made });
         }
+        floatFacts = nextFacts;
         checked = out;
         trace = out.trace;
         stats.reusedRounds = out.reusedRounds;

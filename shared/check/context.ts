@@ -51,6 +51,12 @@ export class Reporter {
   calls = 0;
   /** When set, every call of `report` is appended here as made (the incremental compiler replays them). */
   trace: ReportCall[] | null = null;
+  /**
+   * When set (the incremental compiler), the diagnostic made for a facts
+   * object: a later call with the same facts object, code, place and size
+   * (callers that keep their facts across compiles) reuses it.
+   */
+  made: WeakMap<object, Diagnostic> | null = null;
 
   /** Reports once per (code, place, size, key); returns false when suppressed. */
   report(code: string, span: Span, facts: Facts, size?: string, key = '', related?: { span: Span; message: string }[]): boolean {
@@ -70,6 +76,12 @@ export class Reporter {
       const d = this.dropped.get(code);
       if (d) d.count++; else this.dropped.set(code, { count: 1, span });
       return false;
+    }
+    if (TRACED && this.made && !related) {
+      let d = this.made.get(facts);
+      if (!d || d.code !== code || d.span !== span || d.size !== size) this.made.set(facts, (d = makeDiagnostic(code, span, { ...facts, ...(size !== undefined ? { size } : {}) }, { size })));
+      this.list.push(d);
+      return true;
     }
     this.list.push(makeDiagnostic(code, span, { ...facts, ...(size !== undefined ? { size } : {}) }, { size, related }));
     return true;

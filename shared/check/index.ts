@@ -5,6 +5,7 @@
  * backing stitches (backing.ts). See README.md for the model's layout.
  */
 import type { Diagnostic, PatternHeader, RoundSummary, Span } from '../types';
+import type { Facts } from '../diagnostics/codes';
 import { STITCHES, type PatternAst, type StitchInfo } from '../notation';
 import { sortDiagnostics } from '../diagnostics';
 import { Reporter, SizeContext, TRACED } from './context';
@@ -87,6 +88,10 @@ export interface CheckIncremental {
   number?(sources: SourceTable): Int32Array | null;
   /** A round's summary: a record carried over keeps its summary (`yarns`: the yarn names, joined). */
   summary(r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary;
+  /** The facts of the earlier compile's long-float reports for a size, and where to put this compile's (reportFloats). */
+  floatFacts?(size: string): FloatFactsMemo;
+  /** Diagnostics made for facts objects (Reporter.made), kept across compiles. */
+  made?: WeakMap<object, Diagnostic>;
 }
 
 /** CheckOutput plus what the incremental compiler needs. */
@@ -117,6 +122,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   // The studio's client build compiles tracing out (build-flags.d.ts).
   const incremental = TRACED ? traced : null;
   const rep = new Reporter();
+  if (incremental?.made) rep.made = incremental.made;
   const early: Diagnostic[] = [];
   const head = resolveHeader(ast.header, early, origin);
   for (const d of early) rep.list.push(d);
@@ -166,7 +172,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
       workedRounds += worked.stats.workedRounds;
     }
     checkBackingClosed(m, records[records.length - 1]);
-    reportFloats(ctx, records, m.word, m.store, sources.spans);
+    reportFloats(ctx, records, m.word, m.store, sources.spans, incremental?.floatFacts?.(size));
     m.store.trim();
     sizes.push({
       name: size,
@@ -185,8 +191,30 @@ function summarize(r: RoundRecord, yarns: string[]): RoundSummary {
   return { number: r.number, side: r.side, front: r.front, backing: r.backing, total: r.front + r.backing, longestFloat: longest, span: r.span };
 }
 
-/** LW501: floats past the limit, grouped by yarn, length and line so a range of rounds is one warning. */
-function reportFloats(ctx: SizeContext, records: RoundRecord[], word: string, store: StitchStore, spans: Span[]): void {
+/** One LW501 report's facts, kept by the incremental compiler for the next compile (by end span). */
+export interface FloatFacts { yarn: number; stitches: number; rounds: number[]; basis: string; facts: Facts }
+/** The earlier compile's LW501 facts by end span, and this compile's. */
+export interface FloatFactsMemo { before: Map<Span, FloatFacts[]> | undefined; after: Map<Span, FloatFacts[]> }
+
+/** The facts kept for a group, when every input of its facts is the same. */
+function keptFacts(memo: FloatFactsMemo | undefined, span: Span, yarn: number, stitches: number, rounds: number[], basis: string): Facts | undefined {
+  const list = memo?.before?.get(span);
+  if (!list) return undefined;
+  for (const e of list) {
+    if (e.yarn !== yarn || e.stitches !== stitches || e.basis !== basis || e.rounds.length !== rounds.length) continue;
+    let same = true;
+    for (let i = 0; i < rounds.length && same; i++) same = e.rounds[i] === rounds[i];
+    if (same) return e.facts;
+  }
+  return undefined;
+}
+
+/**
+ * LW501: floats past the limit, grouped by yarn, length and line so a range
+ * of rounds is one warning. With `memo` (the incremental compiler), a group
+ * whose facts the earlier compile made from the same inputs reuses them.
+ */
+function reportFloats(ctx: SizeContext, records: RoundRecord[], word: string, store: StitchStore, spans: Span[], memo?: FloatFactsMemo): void {
   const limit = ctx.head.floatLimitStitches;
   const gauge = ctx.head.gauge;
   if (limit === null || !gauge) return;
@@ -202,11 +230,22 @@ function reportFloats(ctx: SizeContext, records: RoundRecord[], word: string, st
     }
   }
   const lim = ctx.head.header.floatLimit;
+  // Everything besides the group that the facts read.
+  const basis = memo ? `${word}|${gauge.stitchesPerInch}|${limit}|${lim.value} ${lim.unit}|${ctx.head.yarns.join('\u0000')}` : '';
   for (const g of groups.values()) {
-    const inches = g.stitches / gauge.stitchesPerInch;
-    ctx.report('LW501', g.span, {
-      rounds: formatRounds(word, g.rounds), yarn: ctx.head.yarns[g.yarn], stitches: g.stitches,
-      inches: inches.toFixed(2), cm: (inches * 2.54).toFixed(1), limit: `${lim.value} ${lim.unit}`, every: Math.max(1, limit),
-    }, `${g.yarn}|${g.stitches}|${g.rounds[0]}`);
+    let facts = memo ? keptFacts(memo, g.span, g.yarn, g.stitches, g.rounds, basis) : undefined;
+    if (!facts) {
+      const inches = g.stitches / gauge.stitchesPerInch;
+      facts = {
+        rounds: formatRounds(word, g.rounds), yarn: ctx.head.yarns[g.yarn], stitches: g.stitches,
+        inches: inches.toFixed(2), cm: (inches * 2.54).toFixed(1), limit: `${lim.value} ${lim.unit}`, every: Math.max(1, limit),
+      };
+    }
+    if (memo) {
+      const list = memo.after.get(g.span);
+      const e = { yarn: g.yarn, stitches: g.stitches, rounds: g.rounds, basis, facts };
+      if (list) list.push(e); else memo.after.set(g.span, [e]);
+    }
+    ctx.report('LW501', g.span, facts, `${g.yarn}|${g.stitches}|${g.rounds[0]}`);
   }
 }

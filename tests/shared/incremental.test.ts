@@ -169,6 +169,22 @@ describe('incremental compiler', () => {
     expect(json(result)).toBe(json(compile(edited)));
   });
 
+  it('makes the long-float warnings afresh when the gauge changes, though the lines they point at are the same', () => {
+    const inc = createIncrementalCompiler();
+    const source = editPatternSource();
+    const before = inc.compile(source).diagnostics.filter((d) => d.code === 'LW501');
+    expect(before.length).toBeGreaterThan(10);
+    const edited = source.replace('gauge 28 sts and 32 rounds per 10 cm', 'gauge 22 sts and 32 rounds per 10 cm');
+    expect(edited).not.toBe(source);
+    const after = inc.compile(edited);
+    expect(json(after)).toBe(json(compile(edited)));
+    // Same places, other lengths in inches: facts kept from the earlier compile would say otherwise.
+    const messages = after.diagnostics.filter((d) => d.code === 'LW501').map((d) => d.message);
+    expect(messages).not.toEqual(before.map((d) => d.message));
+    // And back: the warnings are the first compile's again.
+    expect(json(inc.compile(source))).toBe(json(compile(source)));
+  });
+
   it('builds round and ladder lines that share no span object (a moved line shifts each of its spans in place, once)', () => {
     const spansOf = (v: unknown, into: object[]): void => {
       if (v === null || typeof v !== 'object') return;
