@@ -537,14 +537,17 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   // Facts of the long-float reports by size and end span (reportFloats), and the diagnostics made for them (Reporter.made).
   let floatFacts = new Map<string, Map<Span, FloatFacts[]>>();
   const made = new WeakMap<object, Diagnostic>();
-  // Summaries of round records carried over from earlier checks (records are shared, so are their summaries).
-  const summaries = new WeakMap<RoundRecord, { yarns: string; summary: RoundSummary }>();
-  const summary = (r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary => {
-    const hit = summaries.get(r);
-    if (hit && hit.yarns === yarns) return hit.summary;
-    const made = make();
-    summaries.set(r, { yarns, summary: made });
-    return made;
+  // Each size's records and their summaries, from the last check (a record carried over is the same object at the same place).
+  let summarized = new Map<string, { records: RoundRecord[]; rounds: RoundSummary[]; yarns: string }>();
+  let nextSummarized = new Map<string, { records: RoundRecord[]; rounds: RoundSummary[]; yarns: string }>();
+  const summaries = (size: string, records: RoundRecord[], yarns: string, make: (r: RoundRecord) => RoundSummary): RoundSummary[] => {
+    const before = summarized.get(size);
+    const same = before && before.yarns === yarns ? before : null;
+    const rounds: RoundSummary[] = [];
+    // Only the records' identities are compared: the records themselves are not read again.
+    for (let i = 0; i < records.length; i++) rounds.push(same && same.records[i] === records[i] ? same.rounds[i] : make(records[i]));
+    nextSummarized.set(size, { records, rounds, yarns });
+    return rounds;
   };
 
   return {
@@ -584,14 +587,17 @@ export function createIncrementalCompiler(): IncrementalCompiler {
           out = checkPatternTraced(parsed.ast, options.size, hadSyntax, {
             number: (sources) => (canResume && replaced ? sources.carryOver(prev.trace.sources, replaced) : null),
             prepare: (sources, carried) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, replaced) : null),
-            summary, floatFacts: facts, made,
+            summaries, floatFacts: facts, made,
           });
         } catch (e) {
           if (!(e instanceof ResumeMiss)) throw e;
           nextFacts.clear();
-          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summary, floatFacts: facts, made });
+          nextSummarized = new Map();
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summaries, floatFacts: facts, made });
         }
         floatFacts = nextFacts;
+        summarized = nextSummarized;
+        nextSummarized = new Map();
         checked = out;
         trace = out.trace;
         stats.reusedRounds = out.reusedRounds;

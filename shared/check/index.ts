@@ -86,8 +86,12 @@ export interface CheckIncremental {
    * or null to number them afresh (preassign).
    */
   number?(sources: SourceTable): Int32Array | null;
-  /** A round's summary: a record carried over keeps its summary (`yarns`: the yarn names, joined). */
-  summary(r: RoundRecord, yarns: string, make: () => RoundSummary): RoundSummary;
+  /**
+   * A size's round summaries: a record carried over (the same object at the
+   * same place as in the earlier compile) keeps its summary (`yarns`: the
+   * yarn names, joined; summaries name yarns).
+   */
+  summaries(size: string, records: RoundRecord[], yarns: string, make: (r: RoundRecord) => RoundSummary): RoundSummary[];
   /** The facts of the earlier compile's long-float reports for a size, and where to put this compile's (reportFloats). */
   floatFacts?(size: string): FloatFactsMemo;
   /** Diagnostics made for facts objects (Reporter.made), kept across compiles. */
@@ -177,7 +181,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
     sizes.push({
       name: size,
       castOn: Math.max(0, castOnCount),
-      rounds: records.map((r) => (incremental ? incremental.summary(r, yarnsKey, () => summarize(r, head.yarns)) : summarize(r, head.yarns))),
+      rounds: incremental ? incremental.summaries(size, records, yarnsKey, (r) => summarize(r, head.yarns)) : records.map((r) => summarize(r, head.yarns)),
       stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns, operations: m.ops },
     });
   });
