@@ -71,6 +71,8 @@ export interface IncrementalStats {
   workedRounds: number;
   /** Sizes whose round plan was carried over from the previous check (not planned again). */
   carriedPlans: number;
+  /** The AST was the previous one with the edited round lines built anew (no statement walked again). */
+  patchedAst: boolean;
 }
 
 /** A compiler that remembers its previous source. */
@@ -261,7 +263,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   // Ladder lines likewise.
   let ladders = new Map<CstNode, LadderEntry>();
   let previous: Previous | null = null;
-  const stats: IncrementalStats = { pieces: 0, reusedPieces: 0, reusedCheck: false, reusedRounds: 0, workedRounds: 0, carriedPlans: 0 };
+  const stats: IncrementalStats = { pieces: 0, reusedPieces: 0, reusedCheck: false, reusedRounds: 0, workedRounds: 0, carriedPlans: 0, patchedAst: false };
   // CSTs handed out in the current compile (each at most once, since moving one changes it in place).
   let taken = new Set<object>();
   // Objects of the previous AST -> their copies in this compile's AST (moved or renumbered round lines, the other statements).
@@ -337,7 +339,16 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   }
 
   /** The pieces of a source with their parse, the lexer's diagnostics and the comments. */
-  interface Cut { order: PieceResult[]; lexDiagnostics: Diagnostic[]; comments: Span[]; stopped: boolean }
+  interface Cut {
+    order: PieceResult[]; lexDiagnostics: Diagnostic[]; comments: Span[]; stopped: boolean;
+    /**
+     * cutAround: the previous source's pieces the edit removed, the pieces
+     * parsed anew in their place, and where in `order` the pieces cut again
+     * begin (those before are the previous ones, unmoved) and end (those
+     * after are the previous ones, moved by the edit); for patchAst.
+     */
+    edit?: { removed: PieceResult[]; added: PieceResult[]; from: number; keptFrom: number };
+  }
 
   /** Lexes the whole source and cuts it as the parser does (parser.ts parseTokens), piece by piece through the cache. */
   function cutAll(source: string, next: Map<string, PieceResult>): Cut {
@@ -436,6 +447,10 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     for (let i = b; i < pieces.length; i++) errors += pieces[i].errors.length;
     // Past the cap the parser stops reading (cutAll); the caches were touched, so start over.
     if (errors > MAX_SYNTAX_DIAGNOSTICS * 4) throw new Error('too many syntax errors for the shortcut');
+    const removed: PieceResult[] = [], added: PieceResult[] = [];
+    for (let i = a; i < b; i++) if (!taken.has(pieces[i].cst ?? pieces[i])) removed.push(pieces[i]);
+    for (let i = a; i < order.length; i++) if (!order[i].reused) added.push(order[i]);
+    const keptFrom = order.length;
     for (let i = b; i < pieces.length; i++) {
       const r = delta === 0 && dLine === 0 ? keep(pieces[i]) : movePiece(pieces[i], delta, dLine);
       order.push(r); next.set(r.key, r); stats.pieces++; stats.reusedPieces++;
@@ -446,7 +461,57 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     for (const c of prev.comments) {
       if (c.from >= toOld) comments.push(delta === 0 && dLine === 0 ? c : { ...c, from: c.from + delta, to: c.to + delta, line: c.line + dLine, endLine: c.endLine + dLine });
     }
-    return { order, lexDiagnostics: [], comments, stopped: false };
+    return { order, lexDiagnostics: [], comments, stopped: false, edit: { removed, added, from: a, keptFrom } };
+  }
+
+  /**
+   * The AST of the previous compile with the edited round lines built anew,
+   * when that is what building every statement would give: the edit
+   * replaced round lines by as many round lines, every statement after the
+   * first one it touched is a round or ladder line whose built line the
+   * memo moved, nothing has a syntax error, and building reported nothing.
+   * Null otherwise (then buildAst builds every statement, most from the memo).
+   */
+  function patchAst(cut: Cut, errors: number): Built | null {
+    const p = previous;
+    if (!p || !cut.edit || errors > 0 || p.built.diagnostics.length > 0) return null;
+    const { removed, added, from, keptFrom } = cut.edit;
+    if (removed.length === 0 || removed.length !== added.length) return null;
+    const order = cut.order;
+    // Statements other than round and ladder lines keep their built objects only where they did not move.
+    for (let i = from; i < order.length; i++) {
+      const r = order[i];
+      if (!r.cst) return null;
+      if (!r.reused) continue; // an added piece: checked below
+      if (r.kind === 'roundLine' ? !lines.has(r.cst) : r.kind !== 'ladderLine' || !ladders.has(r.cst)) return null;
+    }
+    const rounds = p.built.ast.rounds.slice();
+    const made: { was: CstNode; is: CstNode; line: RoundLine }[] = [];
+    for (let k = 0; k < removed.length; k++) {
+      const o = removed[k], n = added[k];
+      if (o.kind !== 'roundLine' || n.kind !== 'roundLine' || !o.cst || !n.cst) return null;
+      const entry = lines.get(o.cst);
+      if (!entry || entry.diagnostics.length > 0 || rounds[entry.line.index] !== entry.line) return null;
+      const one = buildAst([n.cst]);
+      if (one.diagnostics.length > 0 || one.ast.rounds.length !== 1) return null;
+      const line = one.ast.rounds[0];
+      (line as { index: number }).index = entry.line.index;
+      rounds[line.index] = line;
+      made.push({ was: o.cst, is: n.cst, line });
+    }
+    // The round lines of the region cut again must follow one another as before (an edit may also
+    // have moved a line within it); the statements before and after it kept their order.
+    const built = new Map(made.map((m) => [m.is, m.line]));
+    let expect = -1;
+    for (let i = from; i < keptFrom; i++) {
+      const r = order[i];
+      if (r.kind !== 'roundLine' || !r.cst) continue;
+      const line = built.get(r.cst) ?? lines.get(r.cst)?.line;
+      if (!line || (expect >= 0 && line.index !== expect) || rounds[line.index] !== line) return null;
+      expect = line.index + 1;
+    }
+    for (const m of made) { lines.delete(m.was); lines.set(m.is, { line: m.line, diagnostics: [] }); }
+    return { ast: { ...p.built.ast, rounds }, diagnostics: p.built.diagnostics };
   }
 
   /** parseSource (shared/notation/index.ts) with the per-piece cache. */
@@ -471,9 +536,12 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     diagnostics.push(...parseErrorDiagnostics(source, errors, stopped));
     const prev = previous?.order;
     const sameAst = !!prev && prev.length === order.length && order.every((r, i) => r.cst === prev[i].cst && r.offset === prev[i].offset && r.line === prev[i].line && r.errors === prev[i].errors);
-    let built: Built;
+    let built: Built | null;
     if (sameAst) built = previous!.built;
-    else {
+    else if ((built = patchAst(cut, errors.length))) {
+      // The memo's lines were kept (patchAst swapped the edited ones).
+      stats.patchedAst = true;
+    } else {
       const nextLines = new Map<CstNode, LineEntry>();
       const nextLadders = new Map<CstNode, LadderEntry>();
       const memo: RoundLineMemo = {
@@ -553,7 +621,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
   return {
     get lastStats() { return { ...stats }; },
     compile(source: string, options: CompileOptions = {}): CompileResult {
-      stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false; stats.reusedRounds = 0; stats.workedRounds = 0; stats.carriedPlans = 0;
+      stats.pieces = 0; stats.reusedPieces = 0; stats.reusedCheck = false; stats.reusedRounds = 0; stats.workedRounds = 0; stats.carriedPlans = 0; stats.patchedAst = false;
       taken = new Set();
       pairs = new Map();
       let parsed: ReturnType<typeof parse>;

@@ -28,6 +28,8 @@ export interface EditFigure {
   workedRounds: number;
   /** Sizes whose round plan was carried over rather than planned again. */
   carriedPlans: number;
+  /** The AST was the previous one with the edited line built anew. */
+  patchedAst: boolean;
 }
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
@@ -55,5 +57,5 @@ export function measureEdit(kind: EditKind, runs = 21, warm = 5): EditFigure {
     if (i >= warm) { full.push(f); edit.push(e); }
   }
   const fullMs = median(full), editMs = median(edit);
-  return { kind, fullMs, editMs, ratio: editMs / fullMs, reparsed: stats.pieces - stats.reusedPieces, statements: stats.pieces, reusedCheck: stats.reusedCheck, reusedRounds: stats.reusedRounds, workedRounds: stats.workedRounds, carriedPlans: stats.carriedPlans };
+  return { kind, fullMs, editMs, ratio: editMs / fullMs, reparsed: stats.pieces - stats.reusedPieces, statements: stats.pieces, reusedCheck: stats.reusedCheck, reusedRounds: stats.reusedRounds, workedRounds: stats.workedRounds, carriedPlans: stats.carriedPlans, patchedAst: stats.patchedAst };
 }

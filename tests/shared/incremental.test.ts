@@ -138,7 +138,7 @@ describe('incremental compiler', () => {
       else lines[i] = n;
       return lines.join('\n');
     };
-    let resumed = 0, carried = 0;
+    let resumed = 0, carried = 0, patched = 0;
     fc.assert(
       fc.property(fc.nat({ max: bases.length - 1 }), fc.array(roundEdit, { minLength: 1, maxLength: 3 }), fc.option(fc.constantFrom('S', 'M', 'L'), { nil: undefined }), (d, edits, size) => {
         const inc = createIncrementalCompiler();
@@ -149,6 +149,7 @@ describe('incremental compiler', () => {
           expect(json(inc.compile(source, { size }))).toBe(json(compile(source, { size })));
           if (inc.lastStats.reusedRounds > 0) resumed++;
           if (inc.lastStats.carriedPlans > 0) carried++;
+          if (inc.lastStats.patchedAst) patched++;
         }
       }),
       { numRuns: Number(process.env.LW_INCREMENTAL_RUNS ?? 120) },
@@ -157,6 +158,7 @@ describe('incremental compiler', () => {
     expect(resumed).toBeGreaterThan(20);
     expect(carried).toBeGreaterThan(10);
     expect(carried).toBeLessThan(resumed);
+    expect(patched).toBeGreaterThan(10);
   }, 600_000);
 
   it('moves reused statements after an edit that adds lines above them (spans and line numbers as a fresh compile)', () => {
@@ -183,6 +185,22 @@ describe('incremental compiler', () => {
     expect(messages).not.toEqual(before.map((d) => d.message));
     // And back: the warnings are the first compile's again.
     expect(json(inc.compile(source))).toBe(json(compile(source)));
+  });
+
+  it('builds the AST anew when an edited round line also changed places with its neighbour', () => {
+    const inc = createIncrementalCompiler();
+    const source = editPatternSource();
+    inc.compile(source);
+    const a = 'round 150 at front in A: (k 2, catch B) to end\n', b = 'round 151 at front in A: (k 2, catch B) to end\n';
+    expect(source).toContain(a + b);
+    const edited = source.replace(a + b, b.replace('(k 2', '(p 2') + a);
+    expect(json(inc.compile(edited))).toBe(json(compile(edited)));
+    // A plain one-line edit is patched into the previous AST.
+    const plain = 'round 153 at front in A: (k 2, catch B) to end';
+    expect(edited).toContain(plain);
+    const again = edited.replace(plain, 'round 153 at front in A: (k 1, p 1, catch B) to end');
+    expect(json(inc.compile(again))).toBe(json(compile(again)));
+    expect(inc.lastStats.patchedAst).toBe(true);
   });
 
   it('builds round and ladder lines that share no span object (a moved line shifts each of its spans in place, once)', () => {
