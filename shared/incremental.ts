@@ -58,6 +58,7 @@ import type { LadderLine, Op, Repeat, RoundLine, ToSpec } from './notation/ast';
 import { sortDiagnostics } from './diagnostics';
 import { checkPatternTraced, type CheckOutput, type CheckTrace, type FloatFacts, type FloatFactsMemo, type NodeMap, type RoundRecord, type SourceTable } from './check';
 import { createResumer, ResumeMiss } from './check/resume';
+import { carrySources } from './check/carry-sources';
 
 /** What one incremental compile reused. */
 export interface IncrementalStats {
@@ -602,6 +603,8 @@ export function createIncrementalCompiler(): IncrementalCompiler {
     };
   }
 
+  // Where each source table's round lines and operations were numbered from and to (carrySources).
+  const numbered = new WeakMap<SourceTable, { start: number; end: number }>();
   // Facts of the long-float reports by size and end span (reportFloats), and the diagnostics made for them (Reporter.made).
   let floatFacts = new Map<string, Map<Span, FloatFacts[]>>();
   const made = new WeakMap<object, Diagnostic>();
@@ -651,17 +654,28 @@ export function createIncrementalCompiler(): IncrementalCompiler {
           if (!after) nextFacts.set(size, (after = new Map()));
           return { before: floatFacts.get(size), after };
         };
+        // Where each table's round lines and operations were numbered (carrySources checks the old one's).
+        const number = (sources: SourceTable, carry: boolean): Int32Array | null => {
+          const from = sources.spans.length;
+          const before = prev ? numbered.get(prev.trace.sources) : undefined;
+          const carried = carry && canResume && replaced && before ? carrySources(sources, prev.trace.sources, before, replaced) : null;
+          numbered.set(sources, { start: from, end: -1 });
+          return carried;
+        };
+        const numberedTo = (sources: SourceTable): void => { const n = numbered.get(sources); if (n) n.end = sources.spans.length; };
         try {
           out = checkPatternTraced(parsed.ast, options.size, hadSyntax, {
-            number: (sources) => (canResume && replaced ? sources.carryOver(prev.trace.sources, replaced) : null),
-            prepare: (sources, carried) => (canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, replaced) : null),
+            number: (sources) => number(sources, true),
+            prepare: (sources, carried) => { numberedTo(sources); return canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, replaced) : null; },
             summaries, floatFacts: facts, made,
           });
         } catch (e) {
           if (!(e instanceof ResumeMiss)) throw e;
           nextFacts.clear();
           nextSummarized = new Map();
-          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, { prepare: () => null, summaries, floatFacts: facts, made });
+          out = checkPatternTraced(parsed.ast, options.size, hadSyntax, {
+            number: (sources) => number(sources, false), prepare: (sources) => { numberedTo(sources); return null; }, summaries, floatFacts: facts, made,
+          });
         }
         floatFacts = nextFacts;
         summarized = nextSummarized;

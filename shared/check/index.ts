@@ -82,7 +82,7 @@ export interface CheckIncremental {
   prepare(sources: SourceTable, srcMap: Int32Array | null): { resumerFor(size: string): RoundsResumer | undefined } | null;
   /**
    * Numbers the round lines and operations by taking over the earlier
-   * compile's table (SourceTable.carryOver); returns new index by old index,
+   * compile's table (carry-sources.ts); returns new index by old index,
    * or null to number them afresh (preassign).
    */
   number?(sources: SourceTable): Int32Array | null;
@@ -126,7 +126,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   // The studio's client build compiles tracing out (build-flags.d.ts).
   const incremental = TRACED ? traced : null;
   const rep = new Reporter();
-  if (incremental?.made) rep.made = incremental.made;
+  if (TRACED && incremental?.made) rep.made = incremental.made;
   const early: Diagnostic[] = [];
   const head = resolveHeader(ast.header, early, origin);
   for (const d of early) rep.list.push(d);
@@ -134,18 +134,18 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   const sources = new SourceTable();
   sources.add(ast.castOn?.span ?? origin); // index 0: the cast-on (also used for stitches left unworked)
   const charts = prepareCharts(ast.charts, head, rep, sources);
-  const carried = incremental?.number?.(sources) ?? null;
+  const carried = TRACED && incremental ? incremental.number?.(sources) ?? null : null;
   if (!carried) sources.preassign(ast);
-  const prepared = incremental?.prepare(sources, carried) ?? null;
+  const prepared = TRACED && incremental ? incremental.prepare(sources, carried) : null;
   const traces = new Map<string, SizeTrace>();
-  const yarnsKey = incremental ? head.yarns.join('\u0000') : '';
+  const yarnsKey = TRACED && incremental ? head.yarns.join('\u0000') : '';
   let reusedRounds = 0, workedRounds = 0, carriedPlans = 0;
   if (!ast.castOn) rep.report('LW207', origin, {});
   if (head.yarns.length > 1 && !head.gauge) rep.report('LW503', ast.header.yarns[0]?.span ?? origin, {});
   if (only !== undefined && !head.sizes.includes(only)) {
     rep.report('LW208', ast.header.sizesSpan ?? origin, { name: only, known: head.sizes.join(' ') });
     const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes: [] };
-    return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds, carriedPlans } : out;
+    return TRACED && incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds, carriedPlans } : out;
   }
   const sizes: SizeModel[] = [];
   head.sizes.forEach((size, sizeIndex) => {
@@ -159,7 +159,7 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
     const resume = TRACED ? prepared?.resumerFor(size) : undefined;
     const callsBefore = rep.calls;
     const carried = TRACED && resume ? resume.plan() : null;
-    if (carried) carriedPlans++;
+    if (TRACED && carried) carriedPlans++;
     const planned = carried ?? planRounds(ctx, ast, flat, hadSyntaxErrors);
     const planReports = rep.calls - callsBefore;
     let records: RoundRecord[] = [];
@@ -176,17 +176,17 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
       workedRounds += worked.stats.workedRounds;
     }
     checkBackingClosed(m, records[records.length - 1]);
-    reportFloats(ctx, records, m.word, m.store, sources.spans, incremental?.floatFacts?.(size));
+    reportFloats(ctx, records, m.word, m.store, sources.spans, TRACED && incremental ? incremental.floatFacts?.(size) : undefined);
     m.store.trim();
     sizes.push({
       name: size,
       castOn: Math.max(0, castOnCount),
-      rounds: incremental ? incremental.summaries(size, records, yarnsKey, (r) => summarize(r, head.yarns)) : records.map((r) => summarize(r, head.yarns)),
+      rounds: TRACED && incremental ? incremental.summaries(size, records, yarnsKey, (r) => summarize(r, head.yarns)) : records.map((r) => summarize(r, head.yarns)),
       stitches: { yarns: head.yarns, ops: STITCHES, sources: sources.spans, store: m.store, rounds: records, columns: m.columns, operations: m.ops },
     });
   });
   const out = { header: head.header, diagnostics: sortDiagnostics(rep.finish()), sizes };
-  return incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds, carriedPlans } : out;
+  return TRACED && incremental ? { ...out, trace: { sources, sizes: traces }, reusedRounds, workedRounds, carriedPlans } : out;
 }
 
 function summarize(r: RoundRecord, yarns: string[]): RoundSummary {
@@ -235,9 +235,9 @@ function reportFloats(ctx: SizeContext, records: RoundRecord[], word: string, st
   }
   const lim = ctx.head.header.floatLimit;
   // Everything besides the group that the facts read.
-  const basis = memo ? `${word}|${gauge.stitchesPerInch}|${limit}|${lim.value} ${lim.unit}|${ctx.head.yarns.join('\u0000')}` : '';
+  const basis = TRACED && memo ? `${word}|${gauge.stitchesPerInch}|${limit}|${lim.value} ${lim.unit}|${ctx.head.yarns.join('\u0000')}` : '';
   for (const g of groups.values()) {
-    let facts = memo ? keptFacts(memo, g.span, g.yarn, g.stitches, g.rounds, basis) : undefined;
+    let facts = TRACED && memo ? keptFacts(memo, g.span, g.yarn, g.stitches, g.rounds, basis) : undefined;
     if (!facts) {
       const inches = g.stitches / gauge.stitchesPerInch;
       facts = {
@@ -245,7 +245,7 @@ function reportFloats(ctx: SizeContext, records: RoundRecord[], word: string, st
         inches: inches.toFixed(2), cm: (inches * 2.54).toFixed(1), limit: `${lim.value} ${lim.unit}`, every: Math.max(1, limit),
       };
     }
-    if (memo) {
+    if (TRACED && memo) {
       const list = memo.after.get(g.span);
       const e = { yarn: g.yarn, stitches: g.stitches, rounds: g.rounds, basis, facts };
       if (list) list.push(e); else memo.after.set(g.span, [e]);

@@ -92,12 +92,12 @@ export function workRounds(
   // repeats[i]: plan[i] has the reuse.ts key of plan[i - 1] (a round that may share the previous round's stitches).
   const repeats: boolean[] = [];
   const previousReportTrace = ctx.reporter.trace;
-  if (recording) { ctx.reporter.trace = reports; m.trace = events; }
+  if (TRACED && recording) { ctx.reporter.trace = reports; m.trace = events; }
   const done = (): { records: RoundRecord[]; trace: SizeTrace | null; stats: WorkRoundsStats } => {
-    if (recording) { ctx.reporter.trace = previousReportTrace; m.trace = null; }
+    if (TRACED && recording) { ctx.reporter.trace = previousReportTrace; m.trace = null; }
     // The end-of-size checks read the word; rounds taken from a trace did not set it.
     if (records.length) m.word = flat ? 'row' : 'round';
-    const trace = recording ? {
+    const trace = TRACED && recording ? {
       plan, ranges, planReports: options.planReports ?? -1, repeats, checkpoints, records, store, columns: m.columns, events, reports, aborted: m.aborted,
       spare: resume ? resume.spare() : null,
     } : null;
@@ -248,7 +248,7 @@ export function workRounds(
     prevOff = offset; prevLen = count; prevMarkers = m.markersOut; prevSide = side;
   }
   void prevSide;
-  if (recording && !m.aborted) checkpoints[records.length] = checkpoint();
+  if (TRACED && recording && !m.aborted) checkpoints[records.length] = checkpoint();
   return done();
 }
 

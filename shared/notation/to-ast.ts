@@ -8,6 +8,7 @@ import type { CstNode, IToken } from 'chevrotain';
 import type { Diagnostic, Span } from '../types';
 import { makeDiagnostic } from '../diagnostics';
 import { resolveStitch, STITCH_WORDS } from './stitches';
+import { TRACED } from '../check/context';
 import type { ChartBlock, ChartKey, Graded, HeaderAst, LadderLine, NameRef, Op, PatternAst, Repeat, RoundLine, ToSpec } from './ast';
 
 type Element = CstNode | IToken;
@@ -252,7 +253,8 @@ export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): 
   };
 
   for (const st of statements) {
-    if (memo && st.children.roundLine) {
+    // `TRACED &&`: the studio's build has no incremental compiler, and drops the memo's branches.
+    if (TRACED && memo && st.children.roundLine) {
       const hit = memo.get(st);
       if (hit) {
         ast.rounds.push(hit.line.index === ast.rounds.length ? hit.line : memo.reindex(hit.line, ast.rounds.length));
@@ -260,7 +262,7 @@ export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): 
         continue;
       }
     }
-    if (memo && st.children.ladderLine) {
+    if (TRACED && memo && st.children.ladderLine) {
       const hit = memo.getLadder(st);
       if (hit) {
         if (hit.ladder) ast.ladders.push(hit.ladder);
@@ -352,7 +354,7 @@ export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): 
           headSpan: joinSpans(tokenSpan(wordTok ?? colon), tokenSpan(colon)),
         };
         ast.rounds.push(line);
-        memo?.set(st, line, diagnostics.slice(before));
+        if (TRACED && memo) memo.set(st, line, diagnostics.slice(before));
         break;
       }
       case 'chartBlock': {
@@ -367,7 +369,7 @@ export function buildAst(statements: readonly CstNode[], memo?: RoundLineMemo): 
         const before = diagnostics.length;
         const l = ladderLine(n, span);
         if (l) ast.ladders.push(l);
-        memo?.setLadder(st, l, diagnostics.slice(before));
+        if (TRACED && memo) memo.setLadder(st, l, diagnostics.slice(before));
         break;
       }
     }

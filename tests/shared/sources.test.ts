@@ -1,11 +1,13 @@
 /**
- * The source table (shared/check/sources.ts): `carryOver`, which the
+ * The source table (shared/check/sources.ts): `carrySources`
+ * (shared/check/carry-sources.ts), which the
  * incremental compiler uses to renumber after an edit, must give exactly the
  * numbers `preassign` gives the new AST (a stitch's source index is part of
  * the model), and say where each old number went.
  */
 import { describe, expect, it } from 'vitest';
 import { SourceTable } from '../../shared/check/sources.ts';
+import { carrySources } from '../../shared/check/carry-sources.ts';
 import type { RoundLine } from '../../shared/notation/ast.ts';
 import { parseSource } from '../../shared/notation/index.ts';
 import { editPatternSource } from '../bench/edit-pattern.ts';
@@ -21,7 +23,7 @@ function table(): SourceTable {
   return t;
 }
 
-describe('SourceTable.carryOver', () => {
+describe('carrySources', () => {
   const base = parseSource(editPatternSource()).ast;
   const line = base.rounds.findIndex((l) => l.segment?.name === 'front' && l.first.values[0] === 150);
 
@@ -41,7 +43,7 @@ describe('SourceTable.carryOver', () => {
       const fresh = table();
       fresh.preassign(ast);
       const carried = table();
-      const map = carried.carryOver(old, new Map([[base.rounds[line], is]]));
+      const map = carrySources(carried, old, { start: 3, end: old.spans.length }, new Map([[base.rounds[line], is]]));
       expect(map).not.toBeNull();
       expect(carried.nodes).toEqual(fresh.nodes);
       expect(carried.nodes.every((n, i) => n === fresh.nodes[i])).toBe(true);
@@ -57,13 +59,14 @@ describe('SourceTable.carryOver', () => {
     });
   }
 
-  it('declines when the table was not numbered from the same start, or a line has no operations', () => {
+  it('declines when the table was not numbered from the same start or to its end, or a line has no operations', () => {
     const old = table();
     old.preassign(base);
     const other = new SourceTable();
     other.add(origin);
     const is: RoundLine = { ...base.rounds[line], ops: [] };
-    expect(other.carryOver(old, new Map([[base.rounds[line], { ...base.rounds[line] }]]))).toBeNull();
-    expect(table().carryOver(old, new Map([[base.rounds[line], is]]))).toBeNull();
+    expect(carrySources(other, old, { start: 3, end: old.spans.length }, new Map([[base.rounds[line], { ...base.rounds[line] }]]))).toBeNull();
+    expect(carrySources(table(), old, { start: 3, end: old.spans.length + 1 }, new Map([[base.rounds[line], { ...base.rounds[line] }]]))).toBeNull();
+    expect(carrySources(table(), old, { start: 3, end: old.spans.length }, new Map([[base.rounds[line], is]]))).toBeNull();
   });
 });
