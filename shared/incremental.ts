@@ -569,14 +569,16 @@ export function createIncrementalCompiler(): IncrementalCompiler {
    * previous check cannot be resumed: any statement other than a round line
    * changed (header, cast-on, charts and ladders shape every round).
    */
-  function prepare(prev: Previous, order: PieceResult[], ast: PatternAst, sources: SourceTable, carried: Int32Array | null, replaced: Map<RoundLine, RoundLine> | null): ReturnType<Parameters<typeof checkPatternTraced>[3]['prepare']> {
+  function prepare(
+    prev: Previous, order: PieceResult[], ast: PatternAst, sources: SourceTable, carried: Int32Array | null,
+    kept: ReadonlySet<object>, replaced: Map<RoundLine, RoundLine> | null,
+  ): ReturnType<Parameters<typeof checkPatternTraced>[3]['prepare']> {
     const others = (o: PieceResult[]) => o.filter((r) => r.kind !== 'roundLine');
     const now = others(order), then = others(prev.order);
     if (now.length !== then.length || now.some((r, i) => !r.reused || r.kind !== then[i].kind)) return null;
     const p = prev.ast;
     if (!pairWalk(p.header, ast.header, pairs) || !pairWalk(p.castOn, ast.castOn, pairs) || !pairWalk(p.charts, ast.charts, pairs) || !pairWalk(p.ladders, ast.ladders, pairs)) return null;
     // Round lines of the previous AST that are not in this one (the edited ones) are gone.
-    const kept = new Set<object>(ast.rounds);
     const dead = new Set<object>();
     for (const l of p.rounds) if (!kept.has(l) && !pairs.has(l)) collect(l, dead);
     const node = <T extends object>(old: T): T | null => {
@@ -646,7 +648,9 @@ export function createIncrementalCompiler(): IncrementalCompiler {
       } else {
         const canResume = prev !== null && prev.size === options.size && prev.hadSyntax === hadSyntax;
         // Round lines of the previous AST replaced by ones that plan alike (the rest kept their identity).
-        const replaced = canResume ? replacedLines(prev.ast, parsed.ast, new Set(parsed.ast.rounds)) : null;
+        // The new AST's round lines (kept lines are the previous objects), for replacedLines and prepare.
+        const kept = new Set<object>(parsed.ast.rounds);
+        const replaced = canResume ? replacedLines(prev.ast, parsed.ast, kept) : null;
         let out;
         const nextFacts = new Map<string, Map<Span, FloatFacts[]>>();
         const facts = (size: string): FloatFactsMemo => {
@@ -666,7 +670,7 @@ export function createIncrementalCompiler(): IncrementalCompiler {
         try {
           out = checkPatternTraced(parsed.ast, options.size, hadSyntax, {
             number: (sources) => number(sources, true),
-            prepare: (sources, carried) => { numberedTo(sources); return canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, replaced) : null; },
+            prepare: (sources, carried) => { numberedTo(sources); return canResume ? prepare(prev, parsed.order, parsed.ast, sources, carried, kept, replaced) : null; },
             summaries, floatFacts: facts, made,
           });
         } catch (e) {

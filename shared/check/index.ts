@@ -134,9 +134,10 @@ function check(ast: PatternAst, only: string | undefined, hadSyntaxErrors: boole
   const sources = new SourceTable();
   sources.add(ast.castOn?.span ?? origin); // index 0: the cast-on (also used for stitches left unworked)
   const charts = prepareCharts(ast.charts, head, rep, sources);
-  const carried = TRACED && incremental ? incremental.number?.(sources) ?? null : null;
-  if (!carried) sources.preassign(ast);
-  const prepared = TRACED && incremental ? incremental.prepare(sources, carried) : null;
+  // New source number by old one when the earlier compile's table was carried over; else number afresh.
+  const srcMap = TRACED && incremental ? incremental.number?.(sources) ?? null : null;
+  if (!srcMap) sources.preassign(ast);
+  const prepared = TRACED && incremental ? incremental.prepare(sources, srcMap) : null;
   const traces = new Map<string, SizeTrace>();
   const yarnsKey = TRACED && incremental ? head.yarns.join('\u0000') : '';
   let reusedRounds = 0, workedRounds = 0, carriedPlans = 0;
@@ -201,8 +202,8 @@ export interface FloatFacts { yarn: number; stitches: number; rounds: number[]; 
 export interface FloatFactsMemo { before: Map<Span, FloatFacts[]> | undefined; after: Map<Span, FloatFacts[]> }
 
 /** The facts kept for a group, when every input of its facts is the same. */
-function keptFacts(memo: FloatFactsMemo | undefined, span: Span, yarn: number, stitches: number, rounds: number[], basis: string): Facts | undefined {
-  const list = memo?.before?.get(span);
+function keptFacts(memo: FloatFactsMemo, span: Span, yarn: number, stitches: number, rounds: number[], basis: string): Facts | undefined {
+  const list = memo.before?.get(span);
   if (!list) return undefined;
   for (const e of list) {
     if (e.yarn !== yarn || e.stitches !== stitches || e.basis !== basis || e.rounds.length !== rounds.length) continue;
